@@ -1,0 +1,88 @@
+// Builds the Express app: middleware, routers, 404 and the error handler. No listen here, so
+// tests can import it.
+import fs from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import express, { type Express, type NextFunction, type Request, type Response } from 'express';
+import type { AppContext } from './context';
+import { errorHandler } from './lib/error-handler';
+import { AppError, notFound } from './lib/errors';
+import { crossSiteGuard, jsonOnly, securityHeaders } from './lib/security';
+import { authRouter } from './modules/auth/auth.router';
+import { configurePassport } from './modules/auth/passport';
+import { healthRouter } from './modules/health/health.router';
+import { stewardRouter } from './modules/steward/steward.router';
+import { vocabularyRouter } from './modules/vocabulary/vocabulary.router';
+
+const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
+export const CLIENT_DIST = path.join(projectRoot, 'dist/client');
+
+export function buildApp(ctx: AppContext): Express {
+  const { config } = ctx;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.TRUST_PROXY ? 1 : false);
+  app.set('query parser', 'extended');
+
+  app.use(securityHeaders());
+
+  const api = express.Router();
+  api.use((_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
+  api.use(crossSiteGuard(config.publicUrl));
+  api.use(jsonOnly());
+  api.use(express.json({ limit: '100kb', strict: true }));
+  api.use(ctx.sessions.middleware);
+  api.use(absoluteSessionTimeout(config.SESSION_ABSOLUTE_HOURS));
+  const passport = configurePassport();
+  api.use(passport.initialize());
+  api.use(passport.session());
+
+  api.use('/health', healthRouter());
+  api.use('/vocabulary', vocabularyRouter());
+  api.use('/auth', authRouter(ctx));
+  api.use('/steward', stewardRouter(ctx));
+  api.use((req, _res, next) => next(new AppError(404, 'not_found', `There is no ${req.method} ${req.baseUrl}${req.path}.`)));
+  app.use('/api', api);
+
+  serveClient(app);
+  app.use((_req, _res, next) => next(notFound('That page')));
+  app.use(errorHandler);
+  return app;
+}
+
+function absoluteSessionTimeout(hours: number) {
+  const limit = hours * 3_600_000;
+  return (req: Request, _res: Response, next: NextFunction) => {
+    const started = req.session?.startedAt;
+    if (started && Date.now() - started > limit) {
+      return req.session.destroy(() => {
+        // A fresh, empty session object stands in for the rest of this request.
+        (req as { user?: unknown }).user = undefined;
+        req.sessionStore.generate(req);
+        next();
+      });
+    }
+    next();
+  };
+}
+
+function serveClient(app: Express): void {
+  const index = path.join(CLIENT_DIST, 'index.html');
+  app.use(
+    '/assets',
+    express.static(path.join(CLIENT_DIST, 'assets'), { immutable: true, maxAge: '1y', index: false, fallthrough: true }),
+  );
+  app.use(express.static(CLIENT_DIST, { index: false, maxAge: '1h' }));
+  // The SPA's own routes (e.g. /cases/42) get the client on a deep link.
+  app.get('/{*splat}', (req, res, next) => {
+    if (req.path.startsWith('/api/') || req.path.startsWith('/uploads/') || req.path.startsWith('/assets/') || path.extname(req.path)) return next();
+    if (!fs.existsSync(index)) {
+      res.status(503).type('text/plain').send('The client is not built yet. Run `npm run build`.');
+      return;
+    }
+    res.set('Cache-Control', 'no-cache').sendFile(index);
+  });
+}

@@ -1,0 +1,99 @@
+import { Router, type Request } from 'express';
+import passport from 'passport';
+import { z } from 'zod';
+import { emailSchema, loginSchema, passwordSchema, registerSchema } from '../../../shared/auth-schemas';
+import type { AppContext } from '../../context';
+import { destroyUserSessions } from '../../lib/session';
+import { AppError } from '../../lib/errors';
+import { parseOr400, requireUser } from '../../lib/http';
+import { log } from '../../lib/logger';
+import { sessionEvents } from '../../lib/session-events';
+import type { UserRecord } from '../users/users.repository';
+import * as auth from './auth.service';
+
+function signIn(req: Request, user: UserRecord): Promise<void> {
+  // passport 0.7 regenerates the session id inside req.login (ASVS 7.2.4).
+  return new Promise((resolve, reject) =>
+    req.login(user, (error) => {
+      if (error) return reject(error);
+      req.session.startedAt = Date.now();
+      req.session.save((saveError) => (saveError ? reject(saveError) : resolve()));
+    }),
+  );
+}
+
+function signOut(req: Request): Promise<void> {
+  const sid = req.sessionID;
+  return new Promise((resolve, reject) =>
+    req.logout((error) => {
+      if (error) return reject(error);
+      req.session.destroy(() => {
+        sessionEvents.emit('session:ended', sid);
+        resolve();
+      });
+    }),
+  );
+}
+
+export function authRouter(ctx: AppContext): Router {
+  const { config } = ctx;
+  const router = Router();
+
+  router.post('/register', async (req, res) => {
+    const input = parseOr400(registerSchema, req.body);
+    const user = await auth.register(input, config.publicUrl);
+    ctx.pokeMail();
+    await signIn(req, user);
+    log.security('auth.registered', { userId: user.id, ip: req.ip });
+    res.status(201).json(auth.toPublicUser(user));
+  });
+
+  router.post('/login', async (req, res, next) => {
+    req.body = parseOr400(loginSchema, req.body);
+    passport.authenticate('local', { session: false }, (error: unknown, user: UserRecord | false) => {
+      if (error) return next(error);
+      if (!user) return next(new AppError(401, 'bad_credentials', 'That e-mail and password do not match.'));
+      signIn(req, user).then(() => res.json(auth.toPublicUser(user)), next);
+    })(req, res, next);
+  });
+
+  router.post('/logout', async (req, res) => {
+    if (req.user) log.security('auth.sign_out', { userId: req.user.id });
+    if (req.session) await signOut(req);
+    res.clearCookie('sporewell.sid', { path: '/', httpOnly: true, sameSite: 'lax', secure: config.secureCookies });
+    res.status(204).end();
+  });
+
+  router.get('/me', (req, res) => {
+    res.json(auth.toPublicUser(requireUser(req)));
+  });
+
+  router.post('/verify-email', async (req, res) => {
+    const { token } = parseOr400(z.object({ token: z.string().min(10).max(200) }), req.body);
+    const user = await auth.verifyEmail(token);
+    res.json(auth.toPublicUser(user));
+  });
+
+  router.post('/verify-email/resend', async (req, res) => {
+    await auth.resendVerification(requireUser(req), config.publicUrl);
+    ctx.pokeMail();
+    res.status(202).json({ ok: true });
+  });
+
+  router.post('/password-reset/request', async (req, res) => {
+    const { email } = parseOr400(z.object({ email: emailSchema }), req.body);
+    await auth.requestPasswordReset(email, config.publicUrl);
+    ctx.pokeMail();
+    res.status(202).json({ ok: true, message: 'If an account has that e-mail, a reset link is on its way.' });
+  });
+
+  router.post('/password-reset', async (req, res) => {
+    const { token, password } = parseOr400(z.object({ token: z.string().min(10).max(200), password: passwordSchema }), req.body);
+    const user = await auth.resetPassword(token, password);
+    await destroyUserSessions(ctx.sessions.pool, user.id);
+    sessionEvents.emit('user:sessions-ended', user.id);
+    res.json({ ok: true });
+  });
+
+  return router;
+}

@@ -1,0 +1,89 @@
+import { Op, UniqueConstraintError } from 'sequelize';
+import type { Role } from '../../../shared/case-status';
+import { UserModel } from './users.model';
+
+export interface UserRecord {
+  id: number;
+  email: string;
+  displayName: string;
+  role: Role;
+  emailVerified: boolean;
+  disabled: boolean;
+  about: string | null;
+  notifyUrgent: boolean;
+  createdAt: Date;
+}
+
+export interface UserWithHash extends UserRecord {
+  passwordHash: string;
+}
+
+function plain(model: UserModel): UserWithHash {
+  return {
+    id: model.id,
+    email: model.email,
+    displayName: model.displayName,
+    role: model.role,
+    emailVerified: model.emailVerified,
+    disabled: model.disabled,
+    about: model.about,
+    notifyUrgent: model.notifyUrgent,
+    createdAt: model.createdAt,
+    passwordHash: model.passwordHash,
+  };
+}
+
+function withoutHash({ passwordHash: _hash, ...rest }: UserWithHash): UserRecord {
+  return rest;
+}
+
+export class EmailTakenError extends Error {}
+
+export const usersRepository = {
+  async create(input: { email: string; displayName: string; passwordHash: string; role?: Role; emailVerified?: boolean }): Promise<UserRecord> {
+    try {
+      const created = await UserModel.create(input);
+      return withoutHash(plain(created));
+    } catch (error) {
+      if (error instanceof UniqueConstraintError) throw new EmailTakenError();
+      throw error;
+    }
+  },
+
+  async findById(id: number): Promise<UserRecord | null> {
+    const found = await UserModel.findByPk(id);
+    return found ? withoutHash(plain(found)) : null;
+  },
+
+  async findByEmailWithHash(email: string): Promise<UserWithHash | null> {
+    const found = await UserModel.findOne({ where: { email } });
+    return found ? plain(found) : null;
+  },
+
+  async update(id: number, changes: Partial<Pick<UserWithHash, 'role' | 'disabled' | 'displayName' | 'passwordHash' | 'emailVerified' | 'about' | 'notifyUrgent'>>): Promise<UserRecord | null> {
+    const found = await UserModel.findByPk(id);
+    if (!found) return null;
+    await found.update(changes);
+    return withoutHash(plain(found));
+  },
+
+  async list(filter: { role?: Role; q?: string; page: number; pageSize: number }): Promise<{ items: UserRecord[]; total: number }> {
+    const where: Record<string | symbol, unknown> = {};
+    if (filter.role) where.role = filter.role;
+    if (filter.q) {
+      const like = `%${filter.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+      where[Op.or] = [{ email: { [Op.iLike]: like } }, { displayName: { [Op.iLike]: like } }];
+    }
+    const { rows, count } = await UserModel.findAndCountAll({
+      where,
+      order: [['displayName', 'ASC'], ['id', 'ASC']],
+      limit: filter.pageSize,
+      offset: (filter.page - 1) * filter.pageSize,
+    });
+    return { items: rows.map((r) => withoutHash(plain(r))), total: count };
+  },
+
+  async countByRole(role: Role, options: { activeOnly?: boolean } = {}): Promise<number> {
+    return UserModel.count({ where: { role, ...(options.activeOnly ? { disabled: false } : {}) } });
+  },
+};

@@ -1,0 +1,42 @@
+// Debian's Chromium driven by playwright-core, with the flags this machine needs.
+import fs from 'node:fs';
+import path from 'node:path';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { inject } from 'vitest';
+
+export const CHROMIUM = process.env.CHROME_PATH ?? '/usr/bin/chromium';
+export const SCREENSHOTS = path.resolve('test-results/screenshots');
+
+export async function launch(): Promise<Browser> {
+  // playwright-core gives every launch a fresh, empty profile folder of its own.
+  return chromium.launch({
+    executablePath: CHROMIUM,
+    args: [
+      '--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update',
+      '--disable-sync', '--no-first-run', '--disable-quic',
+    ],
+  });
+}
+
+export const PHONE = { viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true };
+export const DESKTOP = { viewport: { width: 1280, height: 800 } };
+
+export function baseUrl(): string {
+  return inject('baseUrl');
+}
+
+export async function newContext(browser: Browser, device: typeof PHONE | typeof DESKTOP = DESKTOP): Promise<BrowserContext> {
+  return browser.newContext({ ...device, baseURL: baseUrl() });
+}
+
+export async function shot(page: Page, name: string): Promise<void> {
+  fs.mkdirSync(SCREENSHOTS, { recursive: true });
+  await page.screenshot({ path: path.join(SCREENSHOTS, `${name}.png`), fullPage: true });
+}
+
+export async function signIn(page: Page, email: string, password = 'sporewell-demo'): Promise<void> {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: /sign in/i }).click();
+}
