@@ -9,6 +9,11 @@ import { errorHandler } from './lib/error-handler';
 import { AppError, notFound } from './lib/errors';
 import { crossSiteGuard, jsonOnly, securityHeaders } from './lib/security';
 import { authRouter } from './modules/auth/auth.router';
+import { batchesRouter } from './modules/batches/batches.router';
+import { casesRouter } from './modules/cases/cases.router';
+import { libraryRouter } from './modules/library/library.router';
+import { mentorsRouter } from './modules/mentors/mentors.router';
+import { threadsRouter } from './modules/threads/threads.router';
 import { configurePassport } from './modules/auth/passport';
 import { healthRouter } from './modules/health/health.router';
 import { stewardRouter } from './modules/steward/steward.router';
@@ -44,6 +49,11 @@ export function buildApp(ctx: AppContext): Express {
   api.use('/vocabulary', vocabularyRouter());
   api.use('/auth', authRouter(ctx));
   api.use('/steward', stewardRouter(ctx));
+  api.use('/cases', threadsRouter(ctx));
+  api.use('/cases', casesRouter(ctx));
+  api.use('/library', libraryRouter(ctx));
+  api.use(batchesRouter(ctx));
+  api.use(mentorsRouter(ctx));
   api.use((req, _res, next) => next(new AppError(404, 'not_found', `There is no ${req.method} ${req.baseUrl}${req.path}.`)));
   app.use('/api', api);
 

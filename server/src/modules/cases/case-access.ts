@@ -1,0 +1,37 @@
+// Who may read a case (ASVS 8.2.2, per object): its grower, any mentor, any steward. Everyone
+// else gets a 404, so the existence of another grower's case is not revealed.
+import { QueryTypes } from 'sequelize';
+import { getSequelize } from '../../db/sequelize';
+import { notFound } from '../../lib/errors';
+
+export interface CaseAccessRow {
+  id: number;
+  growerId: number;
+  mentorId: number | null;
+  status: string;
+}
+
+export function canReadCase(user: Pick<Express.User, 'id' | 'role'> | undefined, row: CaseAccessRow): boolean {
+  if (!user) return false;
+  if (user.role === 'mentor' || user.role === 'steward') return true;
+  return row.growerId === user.id;
+}
+
+/** Mentors see asides; growers never do. */
+export function seesAsides(user: Pick<Express.User, 'role'>): boolean {
+  return user.role === 'mentor' || user.role === 'steward';
+}
+
+export async function findCaseForAccess(caseId: number): Promise<CaseAccessRow | null> {
+  const rows = await getSequelize().query<CaseAccessRow>(
+    `SELECT id, grower_id AS "growerId", mentor_id AS "mentorId", status FROM cases WHERE id = :caseId`,
+    { replacements: { caseId }, type: QueryTypes.SELECT },
+  );
+  return rows[0] ?? null;
+}
+
+export async function readableCaseOr404(user: Express.User | undefined, caseId: number): Promise<CaseAccessRow> {
+  const row = await findCaseForAccess(caseId);
+  if (!row || !canReadCase(user, row)) throw notFound('That case');
+  return row;
+}
