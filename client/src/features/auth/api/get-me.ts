@@ -1,0 +1,29 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { PublicUser } from '@shared/auth-schemas';
+import { api, isApiError } from '../../../lib/api-client';
+import { authKeys } from './auth-keys';
+
+/** The signed-in user, or null for a visitor (the server answers 401). */
+export async function getMe(signal?: AbortSignal): Promise<PublicUser | null> {
+  try {
+    return await api.get<PublicUser>('/api/auth/me', { signal });
+  } catch (error) {
+    if (isApiError(error, 401)) return null;
+    throw error;
+  }
+}
+
+export const meQueryOptions = () =>
+  queryOptions({
+    queryKey: authKeys.me(),
+    queryFn: ({ signal }) => getMe(signal),
+    staleTime: 5 * 60_000,
+    // Route loaders wait on this; when the server is down we show the visitor's view at once
+    // instead of holding the page through retries.
+    retry: false,
+  });
+
+/** `data` is the user, null when signed out, undefined until the first answer. */
+export function useUser() {
+  return useQuery(meQueryOptions());
+}

@@ -1,0 +1,3 @@
+export const vocabularyKeys = {
+  all: ['vocabulary'] as const,
+};
