@@ -19,6 +19,9 @@ export default function SignInRoute() {
         <SignInForm onSignedIn={() => navigate(next, { replace: true })} />
       </Card>
       <p className="mt-6">
+        <Link to="/forgot-password">Forgot your password?</Link>
+      </p>
+      <p className="mt-2">
         New to Sporewell? <Link to={joinPath}>Join as a grower</Link>
       </p>
     </ContentLayout>

@@ -1,0 +1,42 @@
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { DESKTOP, launch, newContext, PHONE, shot, signIn } from './browser';
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe('signing in as the demo grower', () => {
+  for (const [name, device] of [['desktop', DESKTOP], ['phone', PHONE]] as const) {
+    test(`when the demo grower signs in on a ${name}, then the header shows the grower's name`, async () => {
+      const context = await newContext(browser, device);
+      const page = await context.newPage();
+      await page.goto('/batches');
+      // Signed out, the batch shelf sends the visitor to sign in and back.
+      await expect.poll(() => new URL(page.url()).pathname).toBe('/sign-in');
+      await shot(page, `sign-in-${name}`);
+      await page.getByLabel('E-mail').fill('grower@example.test');
+      await page.getByLabel('Password').fill('sporewell-demo');
+      await page.getByRole('button', { name: /sign in/i }).click();
+      await expect.poll(() => new URL(page.url()).pathname).toBe('/batches');
+      const banner = page.getByRole('banner');
+      if (name === 'phone') await banner.getByRole('button', { name: /menu/i }).click();
+      await expect.poll(() => banner.getByText('Rowan Tillsworth').filter({ visible: true }).count()).toBeGreaterThan(0);
+      await shot(page, `signed-in-${name}`);
+      await context.close();
+    });
+  }
+
+  test('when the password is wrong, then the page says so and stays on sign-in', async () => {
+    const context = await newContext(browser);
+    const page = await context.newPage();
+    await signIn(page, 'grower@example.test', 'not-the-demo-password');
+    await expect.poll(() => page.getByText('That e-mail and password do not match.').isVisible()).toBe(true);
+    expect(new URL(page.url()).pathname).toBe('/sign-in');
+    await context.close();
+  });
+});
