@@ -28,13 +28,15 @@ export default defineConfig({
       {
         extends: true,
         root: rootDir,
-        test: { name: 'unit', root: rootDir, include: ['tests/shared/**/*.test.ts', 'tests/unit/**/*.test.ts'], environment: 'node' },
+        test: { name: 'unit', root: rootDir, sequence: { groupOrder: 0 }, include: ['tests/shared/**/*.test.ts', 'tests/unit/**/*.test.ts'], environment: 'node' },
       },
       {
         extends: true,
         root: rootDir,
         test: {
           name: 'api',
+          // Groups run one after another: the API tests restart PostgreSQL in the fault tests.
+          sequence: { groupOrder: 1 },
           root: rootDir,
           include: ['tests/server/**/*.test.ts'],
           environment: 'node',
@@ -49,6 +51,7 @@ export default defineConfig({
         root: rootDir,
         test: {
           name: 'browser',
+          sequence: { groupOrder: 2 },
           root: rootDir,
           include: ['tests/e2e/**/*.test.ts'],
           environment: 'node',
