@@ -155,6 +155,25 @@ describe('POST /api/auth/login', () => {
   });
 });
 
+describe('throttling holds under concurrency', () => {
+  test('when 15 wrong attempts arrive at once through two app instances, then exactly 10 are checked and 5 refused', async () => {
+    const user = await createUser();
+    const second = makeTestApp();
+    try {
+      const results = await Promise.all(
+        Array.from({ length: 15 }, (_, i) =>
+          agent(i % 2 ? second.app : t.app).post('/api/auth/login').set(json).send({ email: user.email, password: `wrong-password-${i}` }),
+        ),
+      );
+      const statuses = results.map((r) => r.status).sort();
+      expect(statuses.filter((s) => s === 401)).toHaveLength(10);
+      expect(statuses.filter((s) => s === 429)).toHaveLength(5);
+    } finally {
+      await second.close();
+    }
+  });
+});
+
 describe('GET /api/auth/me', () => {
   test('when signed out, then 401 with the error shape', async () => {
     const res = await agent(t.app).get('/api/auth/me');

@@ -7,7 +7,7 @@ import { log } from '../../lib/logger';
 import { enqueueMail } from '../mail/outbox';
 import { EmailTakenError, usersRepository, type UserRecord } from '../users/users.repository';
 import { burnTime, hashPassword, isCommonPassword, verifyPassword } from './passwords';
-import { clearFailures, recordFailure, retryAfterSeconds } from './sign-in-throttle';
+import { clearFailures, reserveAttempt } from './sign-in-throttle';
 
 export function toPublicUser(user: UserRecord): PublicUser {
   return { id: user.id, email: user.email, displayName: user.displayName, role: user.role, emailVerified: user.emailVerified };
@@ -48,7 +48,7 @@ export async function register(input: RegisterInput, publicUrl: string): Promise
 }
 
 export async function authenticate(input: LoginInput, ip: string | undefined): Promise<UserRecord> {
-  const wait = await retryAfterSeconds(input.email);
+  const { retryAfter: wait } = await reserveAttempt(input.email, ip);
   if (wait !== null) {
     log.security('auth.sign_in_throttled', { email: input.email, ip });
     const minutes = Math.ceil(wait / 60);
@@ -63,7 +63,6 @@ export async function authenticate(input: LoginInput, ip: string | undefined): P
   const user = await usersRepository.findByEmailWithHash(input.email);
   const ok = user ? await verifyPassword(user.passwordHash, input.password) : (await burnTime(input.password), false);
   if (!user || !ok) {
-    await recordFailure(input.email, ip);
     log.security('auth.sign_in_failed', { email: input.email, ip, known: Boolean(user) });
     throw new AppError(401, 'bad_credentials', 'That e-mail and password do not match.');
   }

@@ -6,21 +6,30 @@ import { getSequelize } from '../../db/sequelize';
 export const MAX_FAILURES = 10;
 export const WINDOW_MINUTES = 15;
 
-export async function retryAfterSeconds(email: string): Promise<number | null> {
-  const rows = await getSequelize().query<{ n: string; oldest: Date | null }>(
-    `SELECT count(*) AS n, min(created_at) AS oldest FROM sign_in_failures
-      WHERE email = :email AND created_at > now() - make_interval(mins => :window)`,
-    { replacements: { email, window: WINDOW_MINUTES }, type: QueryTypes.SELECT },
-  );
-  const n = Number(rows[0]?.n ?? 0);
-  if (n < MAX_FAILURES || !rows[0]?.oldest) return null;
-  const until = new Date(rows[0].oldest).getTime() + WINDOW_MINUTES * 60_000;
-  return Math.max(1, Math.ceil((until - Date.now()) / 1000));
-}
-
-export async function recordFailure(email: string, ip: string | undefined): Promise<void> {
-  await getSequelize().query(`INSERT INTO sign_in_failures (email, ip) VALUES (:email, :ip)`, {
-    replacements: { email, ip: ip ?? null },
+/**
+ * Takes one attempt slot for this account, or says how long to wait. The slot is written as a
+ * failure before the password is checked (and removed on success), under a per-account advisory
+ * lock, so concurrent attempts through several processes cannot slip past the limit together.
+ */
+export async function reserveAttempt(email: string, ip: string | undefined): Promise<{ retryAfter: number } | { retryAfter: null }> {
+  const sequelize = getSequelize();
+  return sequelize.transaction(async (transaction) => {
+    await sequelize.query(`SELECT pg_advisory_xact_lock(727003, hashtext(:email))`, { replacements: { email }, transaction });
+    const rows = await sequelize.query<{ n: string; oldest: Date | null }>(
+      `SELECT count(*) AS n, min(created_at) AS oldest FROM sign_in_failures
+        WHERE email = :email AND created_at > now() - make_interval(mins => :window)`,
+      { replacements: { email, window: WINDOW_MINUTES }, type: QueryTypes.SELECT, transaction },
+    );
+    const n = Number(rows[0]?.n ?? 0);
+    if (n >= MAX_FAILURES && rows[0]?.oldest) {
+      const until = new Date(rows[0].oldest).getTime() + WINDOW_MINUTES * 60_000;
+      return { retryAfter: Math.max(1, Math.ceil((until - Date.now()) / 1000)) };
+    }
+    await sequelize.query(`INSERT INTO sign_in_failures (email, ip) VALUES (:email, :ip)`, {
+      replacements: { email, ip: ip ?? null },
+      transaction,
+    });
+    return { retryAfter: null };
   });
 }
 
