@@ -13,11 +13,18 @@ export const sendMessageSchema = z.object({
   clientId: clientIdSchema,
   body: z.string().trim().min(1, 'Write something first.').max(MESSAGE_MAX, `Keep a message under ${MESSAGE_MAX} characters.`),
   kind: messageKindSchema.default('text'),
+  /** Additive: photos already uploaded to this case (POST /api/cases/:id/photos) to show with the message. */
+  photoIds: z.array(z.number().int().positive()).max(6).optional(),
 });
 export type SendMessageInput = z.input<typeof sendMessageSchema>;
 
 export const joinCaseSchema = z.object({ caseId: z.number().int().positive(), afterSeq: z.number().int().min(0).optional() });
-export const typingSchema = z.object({ caseId: z.number().int().positive(), typing: z.boolean() });
+export const sinceSchema = z.object({ caseId: z.number().int().positive(), afterSeq: z.number().int().min(0) });
+export const leaveCaseSchema = z.object({ caseId: z.number().int().positive() });
+/** `aside` (additive): typing a mentor aside is shown to mentors and stewards only. */
+export const typingSchema = z.object({ caseId: z.number().int().positive(), typing: z.boolean(), aside: z.boolean().optional() });
+/** A catch-up answers at most this many messages; `hasMore` then says to ask again after the last seq. */
+export const CATCH_UP_MAX = 1000;
 
 export interface ThreadPhoto {
   id: number;
@@ -49,13 +56,22 @@ export interface PresenceEntry {
 
 export type Ack<T> = { ok: true } & T | { ok: false; error: { code: string; message: string } };
 
+export interface CaseUpdatedPayload {
+  caseId: number;
+  status: string;
+  mentorId: number | null;
+  urgency: number;
+  /** Additive: the level that goes with `urgency`. */
+  urgencyLevel: 'low' | 'medium' | 'high';
+}
+
 export interface ClientToServerEvents {
-  'case:join': (payload: { caseId: number; afterSeq?: number }, ack: (res: Ack<{ messages: ThreadMessage[]; presence: PresenceEntry[] }>) => void) => void;
+  'case:join': (payload: { caseId: number; afterSeq?: number }, ack: (res: Ack<{ messages: ThreadMessage[]; presence: PresenceEntry[]; hasMore: boolean }>) => void) => void;
   'case:leave': (payload: { caseId: number }) => void;
   'message:send': (payload: SendMessageInput, ack: (res: Ack<{ message: ThreadMessage; duplicate: boolean }>) => void) => void;
   /** Catch-up after a reconnect: every message after `afterSeq`, in order. */
-  'message:since': (payload: { caseId: number; afterSeq: number }, ack: (res: Ack<{ messages: ThreadMessage[] }>) => void) => void;
-  'typing': (payload: { caseId: number; typing: boolean }) => void;
+  'message:since': (payload: { caseId: number; afterSeq: number }, ack: (res: Ack<{ messages: ThreadMessage[]; hasMore: boolean }>) => void) => void;
+  'typing': (payload: { caseId: number; typing: boolean; aside?: boolean }) => void;
 }
 
 export interface ServerToClientEvents {
@@ -63,6 +79,6 @@ export interface ServerToClientEvents {
   'message:hidden': (payload: { caseId: number; messageId: number }) => void;
   'presence': (payload: { caseId: number; present: PresenceEntry[] }) => void;
   'typing': (payload: { caseId: number; userId: number; displayName: string; typing: boolean }) => void;
-  'case:updated': (payload: { caseId: number; status: string; mentorId: number | null; urgency: number }) => void;
+  'case:updated': (payload: CaseUpdatedPayload) => void;
   'unread': (payload: { caseId: number }) => void;
 }

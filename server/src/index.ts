@@ -15,6 +15,8 @@ import { seedDemo } from './db/seeders/demo';
 import { startMailCatcher, type MailCatcher } from './lib/mail-catcher';
 import { log, setLogLevel } from './lib/logger';
 import { createSessionKit } from './lib/session';
+import { attachRealtime } from './realtime/realtime';
+import { startUrgentCaseWatcher } from './modules/threads/urgent-watcher';
 import { createTransport } from './modules/mail/mailer';
 import { startOutboxWorker, type OutboxWorker } from './modules/mail/outbox';
 import { setArgonMemory } from './modules/auth/passwords';
@@ -64,6 +66,8 @@ export async function startServer(options: StartOptions = {}): Promise<RunningSe
   const app = buildApp(ctx);
   const server = http.createServer(app);
   server.keepAliveTimeout = 65_000;
+  const realtime = attachRealtime(server, ctx);
+  const urgentWatcher = startUrgentCaseWatcher(ctx);
 
   await new Promise<void>((resolve, reject) => {
     server.once('error', reject);
@@ -76,6 +80,8 @@ export async function startServer(options: StartOptions = {}): Promise<RunningSe
   let closing: Promise<void> | null = null;
   const close = () =>
     (closing ??= (async () => {
+      await urgentWatcher.stop();
+      await realtime.close();
       await new Promise<void>((resolve) => {
         server.close(() => resolve());
         server.closeAllConnections();
