@@ -13,6 +13,8 @@ import { batchesRouter } from './modules/batches/batches.router';
 import { casesRouter } from './modules/cases/cases.router';
 import { libraryRouter } from './modules/library/library.router';
 import { mentorsRouter } from './modules/mentors/mentors.router';
+import { mentorApplicationsRouter } from './modules/mentor-applications/mentor-applications.router';
+import { moderationRouter } from './modules/moderation/moderation.router';
 import { threadsRouter } from './modules/threads/threads.router';
 import { configurePassport } from './modules/auth/passport';
 import { healthRouter } from './modules/health/health.router';
@@ -54,6 +56,8 @@ export function buildApp(ctx: AppContext): Express {
   api.use('/library', libraryRouter(ctx));
   api.use(batchesRouter(ctx));
   api.use(mentorsRouter(ctx));
+  api.use(mentorApplicationsRouter(ctx));
+  api.use(moderationRouter(ctx));
   api.use((req, _res, next) => next(new AppError(404, 'not_found', `There is no ${req.method} ${req.baseUrl}${req.path}.`)));
   app.use('/api', api);
 

@@ -1,17 +1,30 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { roleSchema } from '../../../shared/case-status';
+import { metricsQuerySchema, userChangeSchema } from '../../../shared/steward-schemas';
 import type { AppContext } from '../../context';
-import { pageQuery, parseOr400, requireRole } from '../../lib/http';
-import { toPublicUser } from '../auth/auth.service';
+import { pageQuery, parseId, parseOr400, requireRole, requireUser } from '../../lib/http';
+import { auditRepository } from '../audit/audit';
 import { usersRepository } from '../users/users.repository';
 import { mailRouter } from '../mail/mail.router';
+import { stewardApplicationsRouter } from '../mentor-applications/mentor-applications.router';
+import { stewardModerationRouter } from '../moderation/moderation.router';
+import { communityMetrics } from './metrics.service';
+import { changeUser, toStewardUser } from './people.service';
 
 const usersQuery = pageQuery.extend({
   role: roleSchema.optional(),
   q: z.string().trim().max(100).optional(),
 });
 
+const auditQuery = pageQuery.extend({
+  action: z.string().trim().max(60).optional(),
+  actorId: z.coerce.number().int().positive().optional(),
+  targetType: z.string().trim().max(40).optional(),
+  targetId: z.string().trim().max(40).optional(),
+});
+
+/** Everything under /api/steward: one role guard in front of all of it. */
 export function stewardRouter(ctx: AppContext): Router {
   const router = Router();
   router.use(requireRole('steward'));
@@ -20,13 +33,32 @@ export function stewardRouter(ctx: AppContext): Router {
     const query = parseOr400(usersQuery, req.query);
     const { items, total } = await usersRepository.list(query);
     res.json({
-      items: items.map((u) => ({ ...toPublicUser(u), disabled: u.disabled, createdAt: u.createdAt })),
+      items: items.map((u) => toStewardUser(u)),
       total,
       page: query.page,
       pageSize: query.pageSize,
     });
   });
 
+  router.patch('/users/:id', async (req, res) => {
+    const id = parseId(req.params.id, 'That person');
+    const change = parseOr400(userChangeSchema, req.body);
+    res.json(await changeUser(ctx, requireUser(req).id, id, change));
+  });
+
+  router.get('/audit', async (req, res) => {
+    const query = parseOr400(auditQuery, req.query);
+    const { items, total } = await auditRepository.list(query);
+    res.json({ items, total, page: query.page, pageSize: query.pageSize });
+  });
+
+  router.get('/metrics', async (req, res) => {
+    const { from, to } = parseOr400(metricsQuerySchema, req.query);
+    res.json(await communityMetrics(from, to));
+  });
+
+  router.use('/mentor-applications', stewardApplicationsRouter(ctx));
+  router.use(stewardModerationRouter(ctx));
   router.use('/mail', mailRouter(ctx));
   return router;
 }
