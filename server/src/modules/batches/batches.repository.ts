@@ -1,0 +1,121 @@
+// The batch shelf in SQL. Every read and write is scoped to the owner: another grower's batch
+// simply is not found.
+import { QueryTypes, type Transaction } from 'sequelize';
+import { getSequelize } from '../../db/sequelize';
+import type { SugarTypeId } from '../../../shared/batch-check';
+import type { BatchCreate, BatchPatch } from '../../../shared/case-schemas';
+import type { CaseStatus } from '../../../shared/case-status';
+import type { MassUnit } from '../../../shared/units';
+import type { StageId } from '../../../shared/vocabulary';
+
+/** The numbers as batches and cases both store them (numeric columns read as float8). */
+export interface WeightColumns {
+  cultureValue: number | null;
+  cultureUnit: MassUnit | null;
+  sugarValue: number | null;
+  sugarUnit: MassUnit | null;
+  sugarType: SugarTypeId | null;
+  moisturePct: number | null;
+}
+
+export interface BatchRow extends WeightColumns {
+  id: number;
+  ownerId: number;
+  stage: StageId;
+  label: string;
+  madeOn: string;
+  ageDays: number;
+  ingredients: string;
+  container: string;
+  cover: string;
+  location: string;
+  notes: string;
+  createdAt: Date;
+  updatedAt: Date;
+}
+
+const COLUMNS = `
+  b.id, b.owner_id AS "ownerId", b.stage, b.label, to_char(b.made_on, 'YYYY-MM-DD') AS "madeOn",
+  GREATEST(0, (now() AT TIME ZONE 'UTC')::date - b.made_on) AS "ageDays", b.ingredients,
+  b.culture_value::float8 AS "cultureValue", b.culture_unit AS "cultureUnit",
+  b.sugar_value::float8 AS "sugarValue", b.sugar_unit AS "sugarUnit", b.sugar_type AS "sugarType",
+  b.moisture_pct::float8 AS "moisturePct", b.container, b.cover, b.location, b.notes,
+  b.created_at AS "createdAt", b.updated_at AS "updatedAt"`;
+
+/** Which columns a field of the API writes. */
+function columnsOf(input: BatchPatch): Record<string, unknown> {
+  const set: Record<string, unknown> = {};
+  if (input.stage !== undefined) set.stage = input.stage;
+  if (input.label !== undefined) set.label = input.label;
+  if (input.madeOn !== undefined) set.made_on = input.madeOn;
+  if (input.ingredients !== undefined) set.ingredients = input.ingredients;
+  if (input.culture !== undefined) {
+    set.culture_value = input.culture?.value ?? null;
+    set.culture_unit = input.culture?.unit ?? null;
+  }
+  if (input.sugar !== undefined) {
+    set.sugar_value = input.sugar?.value ?? null;
+    set.sugar_unit = input.sugar?.unit ?? null;
+  }
+  if (input.sugarType !== undefined) set.sugar_type = input.sugarType;
+  if (input.moisturePct !== undefined) set.moisture_pct = input.moisturePct;
+  if (input.container !== undefined) set.container = input.container;
+  if (input.cover !== undefined) set.cover = input.cover;
+  if (input.location !== undefined) set.location = input.location;
+  if (input.notes !== undefined) set.notes = input.notes;
+  return set;
+}
+
+export const batchesRepository = {
+  async create(ownerId: number, input: BatchCreate, transaction?: Transaction): Promise<BatchRow> {
+    const set = columnsOf(input);
+    const names = Object.keys(set);
+    const rows = await getSequelize().query<{ id: number }>(
+      `INSERT INTO batches (owner_id, ${names.join(', ')}) VALUES (:ownerId, ${names.map((n) => `:${n}`).join(', ')}) RETURNING id`,
+      { replacements: { ownerId, ...set }, type: QueryTypes.SELECT, transaction },
+    );
+    return (await this.findOwned(ownerId, rows[0].id, transaction))!;
+  },
+
+  async findOwned(ownerId: number, id: number, transaction?: Transaction): Promise<BatchRow | null> {
+    const rows = await getSequelize().query<BatchRow>(`SELECT ${COLUMNS} FROM batches b WHERE b.id = :id AND b.owner_id = :ownerId`, {
+      replacements: { id, ownerId },
+      type: QueryTypes.SELECT,
+      transaction,
+    });
+    return rows[0] ?? null;
+  },
+
+  async listOwned(ownerId: number, page: number, pageSize: number): Promise<{ rows: BatchRow[]; total: number }> {
+    const sequelize = getSequelize();
+    const [rows, count] = await Promise.all([
+      sequelize.query<BatchRow>(
+        `SELECT ${COLUMNS} FROM batches b WHERE b.owner_id = :ownerId ORDER BY b.made_on DESC, b.id DESC LIMIT :limit OFFSET :offset`,
+        { replacements: { ownerId, limit: pageSize, offset: (page - 1) * pageSize }, type: QueryTypes.SELECT },
+      ),
+      sequelize.query<{ total: number }>(`SELECT count(*)::int AS total FROM batches WHERE owner_id = :ownerId`, {
+        replacements: { ownerId },
+        type: QueryTypes.SELECT,
+      }),
+    ]);
+    return { rows, total: count[0].total };
+  },
+
+  async updateOwned(ownerId: number, id: number, patch: BatchPatch): Promise<BatchRow | null> {
+    const set = columnsOf(patch);
+    const names = Object.keys(set);
+    const rows = await getSequelize().query<{ id: number }>(
+      `UPDATE batches SET ${names.map((n) => `${n} = :${n}`).join(', ')}, updated_at = now()
+        WHERE id = :id AND owner_id = :ownerId RETURNING id`,
+      { replacements: { id, ownerId, ...set }, type: QueryTypes.SELECT },
+    );
+    return rows.length ? this.findOwned(ownerId, id) : null;
+  },
+
+  async casesOf(batchId: number): Promise<{ id: number; title: string; status: CaseStatus; openedAt: Date }[]> {
+    return getSequelize().query(
+      `SELECT id, title, status, opened_at AS "openedAt" FROM cases WHERE batch_id = :batchId ORDER BY opened_at DESC, id DESC LIMIT 50`,
+      { replacements: { batchId }, type: QueryTypes.SELECT },
+    );
+  },
+};

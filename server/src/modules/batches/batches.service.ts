@@ -1,0 +1,76 @@
+// The batch shelf's rules: owner only (anyone else's batch is "not found"), and each batch
+// answered with its age and, when both weights are known, the sugar & water check in brief.
+import type { BatchCreate, BatchPatch, BatchView, CaseNumbers } from '../../../shared/case-schemas';
+import { notFound } from '../../lib/errors';
+import { checkOf } from '../cases/case-assessment';
+import { batchesRepository, type BatchRow } from './batches.repository';
+
+/** The batch's weights as case numbers, or null unless both weights are known. */
+export function numbersOfBatch(row: BatchRow): CaseNumbers | null {
+  if (row.cultureValue === null || row.cultureUnit === null || row.sugarValue === null || row.sugarUnit === null) return null;
+  return {
+    culture: { value: row.cultureValue, unit: row.cultureUnit },
+    sugar: { value: row.sugarValue, unit: row.sugarUnit },
+    sugarType: row.sugarType ?? undefined,
+    moisturePct: row.moisturePct ?? undefined,
+  };
+}
+
+export function batchView(row: BatchRow): BatchView {
+  const check = checkOf(row.stage, [], numbersOfBatch(row));
+  return {
+    id: row.id,
+    stage: row.stage,
+    label: row.label,
+    madeOn: row.madeOn,
+    ageDays: Number(row.ageDays),
+    ingredients: row.ingredients,
+    culture: row.cultureValue !== null && row.cultureUnit ? { value: row.cultureValue, unit: row.cultureUnit } : null,
+    sugar: row.sugarValue !== null && row.sugarUnit ? { value: row.sugarValue, unit: row.sugarUnit } : null,
+    sugarType: row.sugarType,
+    moisturePct: row.moisturePct,
+    container: row.container,
+    cover: row.cover,
+    location: row.location,
+    notes: row.notes,
+    check: check && {
+      ratio: check.ratio,
+      targetRatio: check.targetRatio,
+      risk: check.risk,
+      waterActivity: check.waterActivity?.estimate ?? null,
+      verdict: check.verdict,
+      sugarToAdd: check.sugarToAdd,
+    },
+    createdAt: row.createdAt.toISOString(),
+    updatedAt: row.updatedAt.toISOString(),
+  };
+}
+
+export const batchesService = {
+  async create(ownerId: number, input: BatchCreate): Promise<BatchView> {
+    return batchView(await batchesRepository.create(ownerId, input));
+  },
+
+  async list(ownerId: number, page: number, pageSize: number) {
+    const { rows, total } = await batchesRepository.listOwned(ownerId, page, pageSize);
+    return { items: rows.map(batchView), total, page, pageSize };
+  },
+
+  async ownedOr404(ownerId: number, id: number): Promise<BatchRow> {
+    const row = await batchesRepository.findOwned(ownerId, id);
+    if (!row) throw notFound('That batch');
+    return row;
+  },
+
+  async read(ownerId: number, id: number): Promise<BatchView> {
+    const row = await this.ownedOr404(ownerId, id);
+    const cases = await batchesRepository.casesOf(id);
+    return { ...batchView(row), cases: cases.map((c) => ({ ...c, openedAt: c.openedAt.toISOString() })) };
+  },
+
+  async update(ownerId: number, id: number, patch: BatchPatch): Promise<BatchView> {
+    const row = await batchesRepository.updateOwned(ownerId, id, patch);
+    if (!row) throw notFound('That batch');
+    return batchView(row);
+  },
+};

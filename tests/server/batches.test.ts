@@ -1,0 +1,135 @@
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { agent, makeTestApp, type TestApp } from '../setup/test-app';
+import { JSON_HEADERS, signedIn } from '../factories/sign-in';
+import { createBatch, dayString } from '../factories/cases';
+
+let t: TestApp;
+beforeAll(() => {
+  t = makeTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
+
+const shelfBatch = {
+  stage: 'IMO2',
+  label: 'Beech hollow rice, jar 3',
+  madeOn: dayString(4),
+  ingredients: 'cooked rice from the beech hollow box',
+  culture: { value: 900, unit: 'g' },
+  sugar: { value: 450, unit: 'g' },
+  sugarType: 'brown',
+  container: 'clay crock',
+  cover: 'paper and string',
+  location: 'north shed, shade',
+};
+
+describe('the batch shelf', () => {
+  test('when a grower records a batch, then 201 answers it with its age in days and the check in brief', async () => {
+    const { browser } = await signedIn(t.app);
+    const res = await browser.post('/api/batches').set(JSON_HEADERS).send(shelfBatch);
+    expect(res.status).toBe(201);
+    expect(res.body).toMatchObject({
+      stage: 'IMO2',
+      label: 'Beech hollow rice, jar 3',
+      madeOn: shelfBatch.madeOn,
+      ageDays: 4,
+      culture: { value: 900, unit: 'g' },
+      sugar: { value: 450, unit: 'g' },
+      location: 'north shed, shade',
+    });
+    // Half the equal-weight rule (common practice): high risk, 450 g to add; aw 0.958 from the
+    // REFERENCES.md worked example (derived).
+    expect(res.body.check).toMatchObject({ ratio: 0.5, targetRatio: 1, risk: 'high', sugarToAdd: { grams: 450 } });
+    expect(res.body.check.waterActivity).toBeCloseTo(0.958, 2);
+
+    const read = await browser.get(`/api/batches/${res.body.id}`);
+    expect(read.status).toBe(200);
+    expect(read.body).toMatchObject({ id: res.body.id, ageDays: 4, cases: [] });
+  });
+
+  test('when a batch has no weights, then check is null', async () => {
+    const { browser } = await signedIn(t.app);
+    const res = await browser.post('/api/batches').set(JSON_HEADERS).send({ stage: 'FPJ', label: 'Mugwort tips', madeOn: dayString(0) });
+    expect(res.status).toBe(201);
+    expect(res.body).toMatchObject({ check: null, culture: null, sugar: null, ingredients: '', ageDays: 0 });
+  });
+
+  test('when a grower lists the shelf, then only their own batches come back, newest made first', async () => {
+    const { browser, user } = await signedIn(t.app);
+    const other = await signedIn(t.app);
+    await createBatch(user.id, { label: 'older', madeOn: dayString(30) });
+    await createBatch(user.id, { label: 'newer', madeOn: dayString(2) });
+    await createBatch(other.user.id, { label: 'not mine' });
+    const res = await browser.get('/api/batches');
+    expect(res.status).toBe(200);
+    expect(res.body.total).toBe(2);
+    expect(res.body.items.map((b: { label: string }) => b.label)).toEqual(['newer', 'older']);
+    expect(res.body.items[1].ageDays).toBe(30);
+  });
+
+  test("when another grower asks for, or changes, someone's batch, then 404 and nothing changes", async () => {
+    const owner = await signedIn(t.app);
+    const stranger = await signedIn(t.app);
+    const batch = await createBatch(owner.user.id);
+    expect((await stranger.browser.get(`/api/batches/${batch.id}`)).status).toBe(404);
+    const patch = await stranger.browser.patch(`/api/batches/${batch.id}`).set(JSON_HEADERS).send({ label: 'mine now' });
+    expect(patch.status).toBe(404);
+    // Even a mentor does not read a grower's shelf: batches are the owner's alone.
+    const mentor = await signedIn(t.app, 'mentor');
+    expect((await mentor.browser.get(`/api/batches/${batch.id}`)).status).toBe(404);
+    const read = await owner.browser.get(`/api/batches/${batch.id}`);
+    expect(read.body.label).toBe('Cedar hollow rice');
+  });
+
+  test('when a visitor asks for the shelf, then 401', async () => {
+    expect((await agent(t.app).get('/api/batches')).status).toBe(401);
+    expect((await agent(t.app).post('/api/batches').set(JSON_HEADERS).send(shelfBatch)).status).toBe(401);
+  });
+
+  test('when the owner patches some fields, then only those change, null clears a weight, and the check follows', async () => {
+    const { browser, user } = await signedIn(t.app);
+    const batch = await createBatch(user.id, { sugar: { value: 450, unit: 'g' } });
+    const res = await browser.patch(`/api/batches/${batch.id}`).set(JSON_HEADERS).send({ sugar: { value: 900, unit: 'g' }, notes: 'topped up' });
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ label: 'Cedar hollow rice', notes: 'topped up', sugar: { value: 900, unit: 'g' } });
+    expect(res.body.check).toMatchObject({ ratio: 1, risk: 'medium' });
+    const cleared = await browser.patch(`/api/batches/${batch.id}`).set(JSON_HEADERS).send({ sugar: null });
+    expect(cleared.body).toMatchObject({ sugar: null, check: null, notes: 'topped up' });
+  });
+
+  test.each([
+    ['an empty body', {}, '_'],
+    ['an empty label', { label: '  ' }, 'label'],
+    ['an unknown stage', { stage: 'IMO7' }, 'stage'],
+    ['a date in the future', { madeOn: dayString(-5) }, 'madeOn'],
+    ['a malformed date', { madeOn: '12/03/2025' }, 'madeOn'],
+    ['a negative weight', { culture: { value: -1, unit: 'g' } }, 'culture.value'],
+    ['an unknown unit', { sugar: { value: 5, unit: 'cup' } }, 'sugar.unit'],
+    ['moisture over 100 %', { moisturePct: 101 }, 'moisturePct'],
+    ['an overlong label', { label: 'x'.repeat(121) }, 'label'],
+  ])('when a PATCH has %s, then 400 names the field and the batch is unchanged', async (_what, body, field) => {
+    const { browser, user } = await signedIn(t.app);
+    const batch = await createBatch(user.id);
+    const res = await browser.patch(`/api/batches/${batch.id}`).set(JSON_HEADERS).send(body);
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields)).toContain(field);
+    const read = await browser.get(`/api/batches/${batch.id}`);
+    expect(read.body).toMatchObject({ label: 'Cedar hollow rice', stage: 'IMO2', culture: { value: 900, unit: 'g' } });
+  });
+
+  test('when a PATCH tries to move the batch to another owner, then the field is ignored', async () => {
+    const { browser, user } = await signedIn(t.app);
+    const other = await signedIn(t.app);
+    const batch = await createBatch(user.id);
+    const res = await browser.patch(`/api/batches/${batch.id}`).set(JSON_HEADERS).send({ ownerId: other.user.id, label: 'still mine' });
+    expect(res.status).toBe(200);
+    expect((await other.browser.get(`/api/batches/${batch.id}`)).status).toBe(404);
+    expect((await browser.get(`/api/batches/${batch.id}`)).body.label).toBe('still mine');
+  });
+
+  test('when the id is not a number, then 404', async () => {
+    const { browser } = await signedIn(t.app);
+    expect((await browser.get('/api/batches/abc')).status).toBe(404);
+  });
+});
