@@ -53,14 +53,11 @@ async function announcePresence(io: ThreadServer, caseId: number): Promise<Prese
 }
 
 export function registerThreadHandlers(io: ThreadServer, socket: ThreadSocket, ctx: AppContext): void {
-  /** The person again, fresh from the session and users tables; null (and the socket dropped) when they are gone. */
+  /** The person again, fresh from the session and users tables; null when the session or account is gone. */
   const freshUser = async (): Promise<Express.User | null> => {
     const user = await loadSessionUser(socket.data.sid, ctx.config.SESSION_ABSOLUTE_HOURS);
-    // A changed role means different rooms: drop the socket, the client reconnects into the right ones.
-    if (!user || user.role !== socket.data.role) {
-      socket.disconnect(true);
-      return null;
-    }
+    // A changed role means different rooms: the socket is dropped and the client reconnects into the right ones.
+    if (!user || user.role !== socket.data.role) return null;
     socket.data.displayName = user.displayName;
     return user;
   };
@@ -75,7 +72,12 @@ export function registerThreadHandlers(io: ThreadServer, socket: ThreadSocket, c
         const parsed = schema.safeParse(payload);
         if (!parsed.success) return ack({ ok: false, error: { code: 'invalid_input', message: 'Some of what you sent needs fixing.', fields: fieldsOf(parsed.error) } });
         const user = await freshUser();
-        if (!user) return ack({ ok: false, error: { code: 'unauthorized', message: 'Sign in again.' } });
+        if (!user) {
+          // The ack goes out before the disconnect, so the client learns why.
+          ack({ ok: false, error: { code: 'unauthorized', message: 'Sign in again.' } });
+          socket.disconnect(true);
+          return;
+        }
         ack(await handle(user, parsed.data));
       } catch (error) {
         ack(errorAck(error));
