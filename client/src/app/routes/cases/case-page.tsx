@@ -1,6 +1,52 @@
-// TODO(issue: case page, PRODUCT.md screen 4): placeholder so the route, its guard and the navigation exist. Replace this file.
-import { PlaceholderPage } from '../../../components/layouts/placeholder-page';
+import type { QueryClient } from '@tanstack/react-query';
+import { useSuspenseQuery } from '@tanstack/react-query';
+import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { PAGE_WIDTH } from '../../../components/layouts/content-layout';
+import { cx } from '../../../components/ui/cx';
+import { useUser } from '../../../features/auth/api/get-me';
+import { routeIdOf } from '../../../features/batches/lib/route-id';
+import { caseQueryOptions } from '../../../features/cases/api/get-case';
+import { useSimilarToCase } from '../../../features/cases/api/get-similar-cases';
+import { AddCasePhotos } from '../../../features/cases/components/add-case-photos';
+import { CaseHeader } from '../../../features/cases/components/case-header';
+import { CasePhotos } from '../../../features/cases/components/case-photos';
+import { SimilarCasesList } from '../../../features/cases/components/similar-cases-list';
+import { CaseThread } from '../../../features/threads/components/case-thread';
+
+export const clientLoader = (queryClient: QueryClient) => async ({ params }: LoaderFunctionArgs) => {
+  // Someone who may not read the case gets a 404 from the server, and the page says so.
+  await queryClient.ensureQueryData(caseQueryOptions(routeIdOf(params.id)));
+  return null;
+};
 
 export default function CasePageRoute() {
-  return <PlaceholderPage title="Case" />;
+  const id = routeIdOf(useParams().id);
+  const { data: detail } = useSuspenseQuery(caseQueryOptions(id));
+  const user = useUser().data ?? null;
+  const similar = useSimilarToCase(id);
+  // The grower of the case and mentors may add photos (the server checks this too).
+  const mayAddPhotos = user !== null && (user.id === detail.grower.id || user.role === 'mentor');
+
+  return (
+    <div className={cx(PAGE_WIDTH, 'flex flex-col gap-10 py-8 sm:py-10')}>
+      <CaseHeader detail={detail} viewerId={user?.id ?? null} />
+
+      <section aria-labelledby="case-photos-heading" className="flex flex-col gap-4">
+        <h2 id="case-photos-heading" className="text-xl font-extrabold">
+          Photos
+        </h2>
+        <CasePhotos photos={detail.photos} title={detail.title} />
+        {mayAddPhotos && <AddCasePhotos caseId={id} />}
+      </section>
+
+      <SimilarCasesList
+        items={similar.data?.items}
+        state={similar.isPending ? 'loading' : similar.isError ? 'error' : 'ready'}
+        error={similar.error?.message}
+        emptyText=""
+      />
+
+      <CaseThread caseId={id} />
+    </div>
+  );
 }

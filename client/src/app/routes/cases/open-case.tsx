@@ -1,6 +1,83 @@
-// TODO(issue: open a case, PRODUCT.md screen 3): placeholder so the route, its guard and the navigation exist. Replace this file.
-import { PlaceholderPage } from '../../../components/layouts/placeholder-page';
+import type { QueryClient } from '@tanstack/react-query';
+import { useQuery } from '@tanstack/react-query';
+import { Link, useNavigate, useSearchParams, type LoaderFunctionArgs } from 'react-router';
+import { ContentLayout } from '../../../components/layouts/content-layout';
+import { Spinner } from '../../../components/ui/spinner';
+import { batchQueryOptions } from '../../../features/batches/api/get-batch';
+import { batchesQueryOptions, useBatches } from '../../../features/batches/api/get-batches';
+import { formatMadeOn } from '../../../features/batches/lib/batch-format';
+import { routeIdOf } from '../../../features/batches/lib/route-id';
+import { OpenCaseForm } from '../../../features/cases/components/open-case-form';
+
+function batchParamOf(params: URLSearchParams): number | null {
+  const raw = params.get('batch');
+  return raw === null || raw === '' ? null : routeIdOf(raw);
+}
+
+export const clientLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
+  const batchId = batchParamOf(new URL(request.url).searchParams);
+  // A batch that is not the grower's answers 404, and the page says it could not be found.
+  if (batchId !== null) await queryClient.ensureQueryData(batchQueryOptions(batchId));
+  else await queryClient.prefetchQuery(batchesQueryOptions());
+  return null;
+};
 
 export default function OpenCaseRoute() {
-  return <PlaceholderPage title="Open a case" />;
+  const [params, setParams] = useSearchParams();
+  const navigate = useNavigate();
+  const batchId = batchParamOf(params);
+  const batch = useQuery({ ...batchQueryOptions(batchId ?? 0), enabled: batchId !== null });
+
+  return (
+    <ContentLayout
+      title="Open a case"
+      lead="Tell the mentors what your batch is doing. While you type, Sporewell checks the sugar and water and shows resolved cases like yours."
+    >
+      {batchId !== null && !batch.data ? (
+        <Spinner label="Fetching your batch…" />
+      ) : (
+        <>
+          {batch.data ? (
+            <p className="mb-6 rounded-soft border border-line bg-rice-deep px-4 py-3">
+              About your batch <Link to={`/batches/${batch.data.id}`} className="font-bold">{batch.data.label}</Link>, made{' '}
+              {formatMadeOn(batch.data.madeOn)}. <Link to="/cases/new">Open a case without a batch instead</Link>
+            </p>
+          ) : (
+            <BatchChooser onChoose={(id) => setParams({ batch: String(id) })} />
+          )}
+          <OpenCaseForm key={batchId ?? 'none'} batch={batch.data ?? null} onOpened={(created) => void navigate(`/cases/${created.id}`)} />
+        </>
+      )}
+    </ContentLayout>
+  );
+}
+
+function BatchChooser({ onChoose }: { onChoose: (id: number) => void }) {
+  const batches = useBatches();
+  const items = batches.data?.items ?? [];
+  if (items.length === 0) return null;
+  return (
+    <div className="mb-6 flex flex-col gap-1 rounded-soft border border-line bg-rice-deep px-4 py-3">
+      <label htmlFor="case-batch" className="font-bold">
+        Is it a batch on your shelf?
+      </label>
+      <p id="case-batch-hint" className="text-base text-loam-soft">
+        Choose it and its stage, place and weights are filled in for you.
+      </p>
+      <select
+        id="case-batch"
+        aria-describedby="case-batch-hint"
+        defaultValue=""
+        onChange={(event) => event.target.value && onChoose(Number(event.target.value))}
+        className="min-h-12 w-full max-w-md rounded-soft border-2 border-loam-soft bg-rice px-3 text-lg"
+      >
+        <option value="">No, start from scratch</option>
+        {items.map((b) => (
+          <option key={b.id} value={b.id}>
+            {b.label} ({b.stage}, made {formatMadeOn(b.madeOn, 'short')})
+          </option>
+        ))}
+      </select>
+    </div>
+  );
 }
