@@ -74,14 +74,13 @@ export async function intakeImage(data: Buffer, which: string): Promise<IntakenI
   const options = { limitInputPixels: PHOTO_LIMITS.maxPixels, failOn: 'error' as const };
   let meta: Metadata;
   try {
+    // Reads the header only; sharp already refuses past limitInputPixels here.
     meta = await sharp(data, options).metadata();
-  } catch {
-    throw refuse('unreadable_image', 'The photo could not be read; it may be damaged.', which);
+  } catch (error) {
+    throw decodeRefusal(error, which);
   }
   const pixels = (meta.width ?? 0) * (meta.height ?? 0) * Math.max(1, meta.pages ?? 1);
-  if (!meta.width || !meta.height || pixels > PHOTO_LIMITS.maxPixels) {
-    throw refuse('too_many_pixels', `The photo has too many pixels (at most ${PHOTO_LIMITS.maxPixels / 1_000_000} million).`, which);
-  }
+  if (!meta.width || !meta.height || pixels > PHOTO_LIMITS.maxPixels) throw tooManyPixels(which);
   try {
     // .rotate() first: it turns the picture upright from its EXIF orientation, which is then
     // dropped with every other piece of metadata (sharp writes none unless told to).
@@ -97,9 +96,14 @@ export async function intakeImage(data: Buffer, which: string): Promise<IntakenI
       .toBuffer({ resolveWithObject: true });
     return { full, thumb, width: info.width, height: info.height, thumbWidth: thumbInfo.width, thumbHeight: thumbInfo.height };
   } catch (error) {
-    if (/pixel limit/i.test(String((error as Error).message))) {
-      throw refuse('too_many_pixels', `The photo has too many pixels (at most ${PHOTO_LIMITS.maxPixels / 1_000_000} million).`, which);
-    }
-    throw refuse('unreadable_image', 'The photo could not be read; it may be damaged.', which);
+    throw decodeRefusal(error, which);
   }
+}
+
+const tooManyPixels = (which: string) =>
+  refuse('too_many_pixels', `The photo has too many pixels (at most ${PHOTO_LIMITS.maxPixels / 1_000_000} million).`, which);
+
+function decodeRefusal(error: unknown, which: string): AppError {
+  if (/pixel limit/i.test(String((error as Error)?.message))) return tooManyPixels(which);
+  return refuse('unreadable_image', 'The photo could not be read; it may be damaged.', which);
 }

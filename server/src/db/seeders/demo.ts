@@ -5,7 +5,8 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { getSequelize } from '../sequelize';
 import { hashPassword } from '../../modules/auth/passwords';
 import { log } from '../../lib/logger';
-import { DEMO_PASSWORD, DEMO_USERS } from './demo-data';
+import { DEMO_BATCHES, DEMO_CASES, DEMO_PASSWORD, DEMO_USERS } from './demo-data';
+import { seedDemoCases } from './demo-cases';
 
 const DEMO_LOCK = 727_002;
 
@@ -44,6 +45,9 @@ export async function seedDemo(): Promise<void> {
     }
   });
   if (seeded) log.info('demo.seeded', { part: 'users', count: DEMO_USERS.length });
+
+  const casesSeeded = await once('demo:cases', async (transaction) => seedDemoCases(await demoUserIds(transaction), transaction));
+  if (casesSeeded) log.info('demo.seeded', { part: 'cases', batches: DEMO_BATCHES.length, cases: DEMO_CASES.length });
 }
 
 /** Maps demo user keys to their database ids (for later seed parts). */

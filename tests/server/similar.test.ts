@@ -1,0 +1,136 @@
+import crypto from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { QueryTypes } from 'sequelize';
+import { getSequelize } from '../../server/src/db/sequelize';
+import { indexResolvedCase, queryWords } from '../../server/src/modules/cases/search-index';
+import { makeTestApp, type TestApp } from '../setup/test-app';
+import { JSON_HEADERS, signedIn } from '../factories/sign-in';
+import { createCase, createResolvedCase } from '../factories/cases';
+
+let t: TestApp;
+beforeAll(() => {
+  t = makeTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
+
+/** A made-up word of letters only, so each test's cases are told apart from the rest of the database. */
+const nonce = () =>
+  Array.from(crypto.randomBytes(8))
+    .map((b) => String.fromCharCode(97 + (b % 26)))
+    .join('');
+
+const ids = (body: { items: { id: number }[] }) => body.items.map((i) => i.id);
+
+describe('batches like this', () => {
+  test('when a draft names a stage and symptoms, then resolved cases with the same stage and shared symptoms rank above the others', async () => {
+    const grower = await signedIn(t.app, 'mentor');
+    const word = nonce();
+    const text = { description: `The ${word} jar on the shelf changed this week.` };
+    const sameBoth = await createResolvedCase(grower.user.id, { ...text, stage: 'IMO2', symptoms: ['bubbling', 'smell-alcoholic'] });
+    const sameStageOnly = await createResolvedCase(grower.user.id, { ...text, stage: 'IMO2', symptoms: ['dry-crusty'] });
+    const sameSymptomsOnly = await createResolvedCase(grower.user.id, { ...text, stage: 'LAB', symptoms: ['bubbling', 'smell-alcoholic'] });
+    const neither = await createResolvedCase(grower.user.id, { ...text, stage: 'WCA', symptoms: ['colour-brown'] });
+    const res = await grower.browser
+      .post('/api/cases/similar')
+      .set(JSON_HEADERS)
+      .send({ stage: 'IMO2', symptoms: ['bubbling', 'smell-alcoholic'], description: `my ${word} jar`, limit: 20 });
+    expect(res.status).toBe(200);
+    const order = ids(res.body);
+    expect(order[0]).toBe(sameBoth);
+    expect(order.indexOf(sameBoth)).toBeLessThan(order.indexOf(sameStageOnly));
+    expect(order.indexOf(sameBoth)).toBeLessThan(order.indexOf(sameSymptomsOnly));
+    expect(order).toContain(neither); // the shared word alone still counts
+    expect(order.indexOf(sameStageOnly)).toBeLessThan(order.indexOf(neither));
+    expect(order.indexOf(sameSymptomsOnly)).toBeLessThan(order.indexOf(neither));
+    const top = res.body.items[0];
+    expect(top).toMatchObject({ stage: 'IMO2', cause: 'too-little-sugar', remedy: 'add-sugar', outcome: 'recovered', status: 'recovered' });
+    expect(top.reasons).toEqual(
+      expect.arrayContaining(['Same stage (IMO2)', 'Shares 2 symptoms: bubbling or foaming, alcoholic or yeasty', expect.stringMatching(new RegExp(`^Mentions .*${word}`))]),
+    );
+    expect(top.score).toBeGreaterThan(res.body.items[1].score);
+  });
+
+  test('when the description is misspelt, then the right case is still found and the correction is reported', async () => {
+    const { browser, user } = await signedIn(t.app, 'mentor');
+    const word = nonce();
+    const target = await createResolvedCase(user.id, {
+      stage: 'OHN',
+      symptoms: ['smell-sour'],
+      title: `Cinnamon ${word} tincture went cloudy`,
+      description: 'The cinnamon and liquorice tincture turned cloudy and sour after the second straining.',
+    });
+    const misspelt = `${word.slice(0, 3)}${word.slice(4)}`; // one letter dropped
+    const res = await browser
+      .post('/api/cases/similar')
+      .set(JSON_HEADERS)
+      .send({ stage: 'other', description: `my cinamon ${misspelt} tincure is clowdy`, limit: 10 });
+    expect(res.status).toBe(200);
+    expect(ids(res.body)).toContain(target);
+    expect(ids(res.body)[0]).toBe(target);
+    expect(res.body.terms).toEqual(expect.arrayContaining([{ word: 'cinamon', term: 'cinnamon' }, { word: misspelt, term: word }]));
+    const item = res.body.items.find((i: { id: number }) => i.id === target);
+    expect(item.reasons.join(' ')).toMatch(/Mentions .*cinnamon/);
+  });
+
+  test('when a case asks for batches like it, then it never lists itself, nor open cases; the grower sees only published ones', async () => {
+    const grower = await signedIn(t.app);
+    const mentor = await signedIn(t.app, 'mentor');
+    const word = nonce();
+    const description = `White ${word} threads on the bran pile.`;
+    const own = await createCase(grower.user.id, { stage: 'IMO3', symptoms: ['colour-white'], description });
+    const openOther = await createCase(mentor.user.id, { stage: 'IMO3', symptoms: ['colour-white'], description });
+    const published = await createResolvedCase(mentor.user.id, { stage: 'IMO3', symptoms: ['colour-white'], description, published: true });
+    const unpublished = await createResolvedCase(mentor.user.id, { stage: 'IMO3', symptoms: ['colour-white'], description, published: false, outcome: 'lost' });
+
+    const forGrower = await grower.browser.get(`/api/cases/${own}/similar?limit=20`);
+    expect(forGrower.status).toBe(200);
+    expect(ids(forGrower.body)).toContain(published);
+    expect(ids(forGrower.body)).not.toContain(unpublished);
+    expect(ids(forGrower.body)).not.toContain(own);
+    expect(ids(forGrower.body)).not.toContain(openOther);
+
+    const forMentor = await mentor.browser.get(`/api/cases/${own}/similar?limit=20`);
+    expect(ids(forMentor.body)).toEqual(expect.arrayContaining([published, unpublished]));
+    const lost = forMentor.body.items.find((i: { id: number }) => i.id === unpublished);
+    expect(lost).toMatchObject({ status: 'lost', outcome: 'lost', published: false });
+
+    const ofResolved = await mentor.browser.get(`/api/cases/${published}/similar?limit=20`);
+    expect(ids(ofResolved.body)).not.toContain(published);
+    expect(ids(ofResolved.body)).toContain(unpublished);
+  });
+
+  test('when no limit is given, then at most five come back; over twenty is refused', async () => {
+    const { browser, user } = await signedIn(t.app, 'mentor');
+    const word = nonce();
+    for (let i = 0; i < 7; i++) await createResolvedCase(user.id, { stage: 'FFJ', symptoms: ['smell-sour'], description: `${word} plums` });
+    const res = await browser.post('/api/cases/similar').set(JSON_HEADERS).send({ stage: 'FFJ', symptoms: ['smell-sour'], description: `${word}` });
+    expect(res.body.items).toHaveLength(5);
+    expect((await browser.post('/api/cases/similar').set(JSON_HEADERS).send({ stage: 'FFJ', limit: 21 })).status).toBe(400);
+    expect((await browser.get(`/api/cases/${res.body.items[0].id}/similar?limit=50`)).status).toBe(400);
+  });
+
+  test("when another grower asks for batches like someone's case, then 404", async () => {
+    const owner = await signedIn(t.app);
+    const stranger = await signedIn(t.app);
+    const id = await createCase(owner.user.id);
+    expect((await stranger.browser.get(`/api/cases/${id}/similar`)).status).toBe(404);
+  });
+
+  test('when a resolved case is indexed twice, then its words count once, cut the way queries cut them', async () => {
+    const { user } = await signedIn(t.app, 'mentor');
+    const word = nonce();
+    const id = await createResolvedCase(user.id, { stage: 'LAB', symptoms: [], description: `Milk serum smelled of ${word}-ish cheese.` });
+    await getSequelize().transaction((transaction) => indexResolvedCase(id, transaction));
+    const rows = await getSequelize().query<{ term: string; uses: number }>(`SELECT term, uses FROM search_terms WHERE term = :word`, {
+      replacements: { word },
+      type: QueryTypes.SELECT,
+    });
+    expect(rows).toEqual([{ term: word, uses: 1 }]);
+    expect(queryWords(`Milk serum smelled of ${word}-ish cheese.`)).toEqual(['milk', 'serum', 'smelled', word, 'ish', 'cheese']);
+    // An open case is not indexed at all.
+    const open = await createCase(user.id, { description: `${word}zz` });
+    expect(await getSequelize().transaction((transaction) => indexResolvedCase(open, transaction))).toBe(false);
+  });
+});
