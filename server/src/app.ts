@@ -3,6 +3,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import compression from 'compression';
 import express, { type Express, type NextFunction, type Request, type Response } from 'express';
 import type { AppContext } from './context';
 import { errorHandler } from './lib/error-handler';
@@ -32,6 +33,8 @@ export function buildApp(ctx: AppContext): Express {
   app.set('query parser', 'extended');
 
   app.use(securityHeaders());
+  // Growers are often on weak rural connections: compress text responses (JS, CSS, JSON).
+  app.use(compression());
 
   const api = express.Router();
   api.use((_req, res, next) => {
