@@ -17,6 +17,7 @@ import { log, setLogLevel } from './lib/logger';
 import { createSessionKit } from './lib/session';
 import { attachRealtime } from './realtime/realtime';
 import { startUrgentCaseWatcher } from './modules/threads/urgent-watcher';
+import { startLibraryWork } from './modules/library/library-startup';
 import { createTransport } from './modules/mail/mailer';
 import { startOutboxWorker, type OutboxWorker } from './modules/mail/outbox';
 import { setArgonMemory } from './modules/auth/passwords';
@@ -68,6 +69,7 @@ export async function startServer(options: StartOptions = {}): Promise<RunningSe
   server.keepAliveTimeout = 65_000;
   const realtime = attachRealtime(server, ctx);
   const urgentWatcher = startUrgentCaseWatcher(ctx);
+  const libraryWork = await startLibraryWork(config, ctx.pokeMail);
 
   await new Promise<void>((resolve, reject) => {
     server.once('error', reject);
@@ -81,6 +83,7 @@ export async function startServer(options: StartOptions = {}): Promise<RunningSe
   const close = () =>
     (closing ??= (async () => {
       await urgentWatcher.stop();
+      await libraryWork.stop();
       await realtime.close();
       await new Promise<void>((resolve) => {
         server.close(() => resolve());

@@ -1,7 +1,23 @@
-// TODO(issues 5 and 6): mentor profiles (GET /api/mentors/:id) and applications (POST /api/mentor-applications). Mounted at /api.
+// Mounted at /api. Holds:
+//   GET /api/mentors/:id   anyone signed in → MentorProfile (404 for anyone who is not a mentor)
+//   /api/cases/:id/...     the closing routes (server/src/modules/closing/closing.router.ts):
+//                          app.ts mounts this router at /api, so closing is mounted from here
+//                          rather than by another line in app.ts.
+// Mentor applications (POST /api/mentor-applications) have their own router in
+// server/src/modules/mentor-applications/.
 import { Router } from 'express';
 import type { AppContext } from '../../context';
+import { parseId, requireSignedIn } from '../../lib/http';
+import { closingRouter } from '../closing/closing.router';
+import { getMentorProfile } from './mentors.service';
 
-export function mentorsRouter(_ctx: AppContext): Router {
-  return Router();
+export function mentorsRouter(ctx: AppContext): Router {
+  const router = Router();
+  router.use('/cases', closingRouter(ctx));
+
+  router.get('/mentors/:id', requireSignedIn, async (req, res) => {
+    res.json(await getMentorProfile(parseId(req.params.id, 'That mentor')));
+  });
+
+  return router;
 }

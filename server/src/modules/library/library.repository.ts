@@ -1,0 +1,155 @@
+// The Field Library's storage: guides and field notes in library_entries, the known words in
+// search_terms that misspelt query words are read as, and the outcome counts behind the remedy
+// track records. Raw SQL with bind parameters; plain camelCase objects out.
+import { QueryTypes, type Transaction } from 'sequelize';
+import type { LibraryKind, LibraryListItem } from '../../../shared/library-schemas';
+import type { OutcomeCounts } from '../../../shared/remedy-records';
+import { getSequelize } from '../../db/sequelize';
+
+/** A list item as stored: the id, and the date as PostgreSQL gives it. */
+export type EntryRow = Omit<LibraryListItem, 'publishedAt' | 'remedyRecord'> & { id: number; publishedAt: Date };
+
+export interface RankedEntryRow extends EntryRow {
+  /** PostgreSQL's text rank (ts_rank_cd), 0 for a title-only trigram match */
+  rank: number;
+}
+
+export interface FullEntryRow extends EntryRow {
+  caseId: number | null;
+  body: string;
+  sources: string[];
+  detail: Record<string, unknown>;
+  updatedAt: Date;
+}
+
+export interface EntryFilters {
+  stage?: string;
+  symptoms: readonly string[];
+  kind?: LibraryKind;
+}
+
+const LIST_COLUMNS = `e.id, e.slug, e.kind, e.title, e.summary, e.stages, e.symptoms, e.cause, e.remedy, e.outcome, e.published_at AS "publishedAt"`;
+
+/** The WHERE conditions for the filters, with their values appended to `bind` ($n placeholders). */
+function filterSql(filters: EntryFilters, bind: unknown[]): string {
+  const parts: string[] = [];
+  if (filters.stage) {
+    bind.push([filters.stage]);
+    parts.push(`e.stages @> $${bind.length}::text[]`);
+  }
+  if (filters.symptoms.length) {
+    bind.push([...filters.symptoms]);
+    parts.push(`e.symptoms @> $${bind.length}::text[]`);
+  }
+  if (filters.kind) {
+    bind.push(filters.kind);
+    parts.push(`e.kind = $${bind.length}`);
+  }
+  return parts.length ? `AND ${parts.join(' AND ')}` : '';
+}
+
+export const libraryRepository = {
+  /** Each query word's closest known words (trigram similarity over search_terms), best first. */
+  async knownWordsLike(words: readonly string[], perWord: number, minSimilarity: number): Promise<Array<{ word: string; term: string; similarity: number }>> {
+    if (!words.length) return [];
+    return getSequelize().query(
+      `SELECT w.word, s.term, s.similarity
+         FROM unnest($1::text[]) AS w(word)
+         CROSS JOIN LATERAL (
+           SELECT t.term, similarity(t.term, w.word) AS similarity
+             FROM search_terms t
+            WHERE t.term % w.word AND similarity(t.term, w.word) >= $3
+            ORDER BY similarity(t.term, w.word) DESC, t.uses DESC, t.term
+            LIMIT $2
+         ) s`,
+      { bind: [[...words], perWord, minSimilarity], type: QueryTypes.SELECT },
+    );
+  },
+
+  /** PostgreSQL narrows: full-text matches of any of the words (GIN), best text rank first. */
+  async matchText(words: readonly string[], filters: EntryFilters, cap: number): Promise<RankedEntryRow[]> {
+    if (!words.length) return [];
+    // websearch_to_tsquery never fails on odd input; the words are a-z only anyway.
+    const bind: unknown[] = [words.join(' or '), cap];
+    const where = filterSql(filters, bind);
+    return getSequelize().query<RankedEntryRow>(
+      `SELECT ${LIST_COLUMNS}, ts_rank_cd(e.search, q.query)::float8 AS rank
+         FROM library_entries e, websearch_to_tsquery('english', $1) AS q(query)
+        WHERE e.search @@ q.query ${where}
+        ORDER BY rank DESC, e.id DESC
+        LIMIT $2`,
+      { bind, type: QueryTypes.SELECT },
+    );
+  },
+
+  /** For a word no known term corrects: titles that contain something like it (trigram index). */
+  async matchTitleWords(words: readonly string[], filters: EntryFilters, cap: number): Promise<RankedEntryRow[]> {
+    if (!words.length) return [];
+    const bind: unknown[] = [[...words], cap];
+    const where = filterSql(filters, bind);
+    return getSequelize().query<RankedEntryRow>(
+      `SELECT ${LIST_COLUMNS}, 0::float8 AS rank
+         FROM library_entries e
+        WHERE EXISTS (SELECT 1 FROM unnest($1::text[]) AS w(word) WHERE w.word <% lower(e.title)) ${where}
+        ORDER BY e.published_at DESC, e.id DESC
+        LIMIT $2`,
+      { bind, type: QueryTypes.SELECT },
+    );
+  },
+
+  /** Browsing without words: guides first, then notes by their remedy's place in `remedyOrder`
+   * (best lower bound first), newest first within a remedy. */
+  async browse(filters: EntryFilters, remedyOrder: readonly string[], limit: number, offset: number): Promise<{ rows: EntryRow[]; total: number }> {
+    const bind: unknown[] = [[...remedyOrder], limit, offset];
+    const where = filterSql(filters, bind);
+    const sequelize = getSequelize();
+    const rows = await sequelize.query<EntryRow>(
+      `SELECT ${LIST_COLUMNS}
+         FROM library_entries e
+        WHERE true ${where}
+        ORDER BY (e.kind = 'guide') DESC, array_position($1::text[], e.remedy) NULLS LAST, e.published_at DESC, e.id DESC
+        LIMIT $2 OFFSET $3`,
+      { bind, type: QueryTypes.SELECT },
+    );
+    const countBind: unknown[] = [];
+    const countWhere = filterSql(filters, countBind);
+    const [count] = await sequelize.query<{ total: number }>(`SELECT count(*)::int AS total FROM library_entries e WHERE true ${countWhere}`, {
+      bind: countBind,
+      type: QueryTypes.SELECT,
+    });
+    return { rows, total: count?.total ?? 0 };
+  },
+
+  async findBySlug(slug: string): Promise<FullEntryRow | null> {
+    const rows = await getSequelize().query<FullEntryRow>(
+      `SELECT ${LIST_COLUMNS}, e.case_id AS "caseId", e.body, e.sources, e.detail, e.updated_at AS "updatedAt"
+         FROM library_entries e WHERE e.slug = $1`,
+      { bind: [slug], type: QueryTypes.SELECT },
+    );
+    return rows[0] ?? null;
+  },
+
+  async photoKey(caseId: number, photoId: number, thumb: boolean): Promise<string | null> {
+    const rows = await getSequelize().query<{ key: string }>(
+      `SELECT CASE WHEN $3 THEN thumb_key ELSE storage_key END AS key FROM case_photos WHERE id = $1 AND case_id = $2`,
+      { bind: [photoId, caseId, thumb], type: QueryTypes.SELECT },
+    );
+    return rows[0]?.key ?? null;
+  },
+
+  /** Recovery reports per remedy: what the remedy track records are computed from. */
+  async outcomeCountsByRemedy(transaction?: Transaction): Promise<Array<OutcomeCounts & { remedy: string }>> {
+    return getSequelize().query(
+      `SELECT remedy,
+              count(*) FILTER (WHERE outcome = 'recovered')::int AS recovered,
+              count(*) FILTER (WHERE outcome = 'partly')::int AS partly,
+              count(*) FILTER (WHERE outcome = 'lost')::int AS lost,
+              COALESCE(sum(stars), 0)::int AS "starsSum",
+              count(stars)::int AS "starsCount"
+         FROM cases
+        WHERE outcome IS NOT NULL AND remedy IS NOT NULL
+        GROUP BY remedy`,
+      { type: QueryTypes.SELECT, transaction },
+    );
+  },
+};

@@ -1,0 +1,96 @@
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { bayesianAverage, DEFAULT_RATING_PRIOR, wilsonInterval } from '../../server/shared/track-record';
+import { getSequelize } from '../../server/src/db/sequelize';
+import { publishFieldNote } from '../../server/src/modules/library/field-notes';
+import { agent, makeTestApp, type TestApp } from '../setup/test-app';
+import { createCase, createResolvedCase, daysAgo } from '../factories/cases';
+import { signedIn } from '../factories/sign-in';
+
+let t: TestApp;
+beforeAll(() => {
+  t = makeTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
+
+const HOUR = 3_600_000;
+
+/** A message on the case at a chosen time, with the case's next sequence number. */
+async function messageAt(caseId: number, authorId: number, at: Date, kind: 'text' | 'aside' = 'text'): Promise<void> {
+  await getSequelize().transaction(async (transaction) => {
+    const [[{ next_seq: seq }]] = (await getSequelize().query(`UPDATE cases SET next_seq = next_seq + 1 WHERE id = $1 RETURNING next_seq`, {
+      bind: [caseId],
+      transaction,
+    })) as unknown as [[{ next_seq: number }]];
+    await getSequelize().query(`INSERT INTO messages (case_id, seq, author_id, kind, body, created_at) VALUES ($1, $2, $3, $4, 'A reply.', $5)`, {
+      bind: [caseId, seq, authorId, kind, at],
+      transaction,
+    });
+  });
+}
+
+describe('GET /api/mentors/:id', () => {
+  test('when a mentor has a record, then the profile shows cases helped, the median first reply, the Wilson interval, Bayesian stars and recent notes', async () => {
+    const mentor = await signedIn(t.app, 'mentor', 'Hale Mentor');
+    const grower = await signedIn(t.app, 'grower');
+    const outcomes = [
+      ['recovered', 5],
+      ['recovered', 5],
+      ['partly', 4],
+      ['lost', 2],
+    ] as const;
+    const resolved: number[] = [];
+    for (const [outcome] of outcomes) {
+      resolved.push(await createResolvedCase(grower.user.id, { mentorId: mentor.user.id, outcome, openedAt: daysAgo(10), published: outcome === 'recovered' }));
+    }
+    for (const [index, [, stars]] of outcomes.entries()) {
+      await getSequelize().query(`UPDATE cases SET stars = $2 WHERE id = $1`, { bind: [resolved[index], stars] });
+    }
+    const note = await publishFieldNote(resolved[0]);
+    await createCase(grower.user.id, { status: 'watching', mentorId: mentor.user.id });
+    await createCase(grower.user.id, { status: 'in_conversation', mentorId: mentor.user.id });
+    // First replies 2, 4 and 9 hours after opening; an aside and a later reply do not count.
+    for (const [index, hours] of [2, 4, 9].entries()) {
+      const opened = daysAgo(10);
+      await getSequelize().query(`UPDATE cases SET opened_at = $2 WHERE id = $1`, { bind: [resolved[index], opened] });
+      await messageAt(resolved[index], mentor.user.id, new Date(opened.getTime() + (hours - 1) * HOUR), 'aside');
+      await messageAt(resolved[index], mentor.user.id, new Date(opened.getTime() + hours * HOUR));
+      await messageAt(resolved[index], mentor.user.id, new Date(opened.getTime() + (hours + 20) * HOUR));
+    }
+
+    const res = await grower.browser.get(`/api/mentors/${mentor.user.id}`);
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ id: mentor.user.id, displayName: 'Hale Mentor', role: 'mentor', casesHelped: 5, casesOpen: 1, repliesCounted: 3 });
+    // from the data above: the median of 2, 4 and 9 hours
+    expect(res.body.medianHoursToFirstReply).toBeCloseTo(4, 6);
+    const expected = wilsonInterval(3, 4);
+    expect(res.body.record).toMatchObject({ trials: 4, saved: 3, recovered: 2, partly: 1, lost: 1 });
+    expect(res.body.record.lower).toBeCloseTo(expected.lower, 12);
+    expect(res.body.record.upper).toBeCloseTo(expected.upper, 12);
+    // common practice: Bayesian average with the prior stated in track-record.ts (5 ratings of 3.5)
+    expect(res.body.record.stars.average).toBeCloseTo(bayesianAverage(16, 4, DEFAULT_RATING_PRIOR), 12);
+    expect(res.body.record.stars.average).toBeCloseTo((3.5 * 5 + 16) / 9, 12);
+    expect(res.body.record.text).toBe(`saved 3 of 4 batches, 1 of them partly (lower bound ${Math.round(expected.lower * 100)} %)`);
+    expect(res.body.recentNotes.map((n: { slug: string }) => n.slug)).toContain(note.slug);
+    expect(JSON.stringify(res.body)).not.toContain(grower.user.email);
+  });
+
+  test('when the mentor has no cases yet, then the record is empty, not zero', async () => {
+    const mentor = await signedIn(t.app, 'mentor');
+    const res = await mentor.browser.get(`/api/mentors/${mentor.user.id}`);
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ casesHelped: 0, medianHoursToFirstReply: null, repliesCounted: 0, recentNotes: [] });
+    expect(res.body.record).toMatchObject({ trials: 0, rate: null, lower: 0, upper: 1, text: 'no recovery reports yet' });
+    expect(res.body.record.stars).toMatchObject({ average: DEFAULT_RATING_PRIOR.priorMean, mean: null, ratings: 0 });
+  });
+
+  test('when a visitor asks, then 401; when the id is a grower or not a number, then 404', async () => {
+    const mentor = await signedIn(t.app, 'mentor');
+    expect((await agent(t.app).get(`/api/mentors/${mentor.user.id}`)).status).toBe(401);
+    const grower = await signedIn(t.app, 'grower');
+    expect((await grower.browser.get(`/api/mentors/${grower.user.id}`)).status).toBe(404);
+    expect((await grower.browser.get('/api/mentors/abc')).status).toBe(404);
+    expect((await grower.browser.get('/api/mentors/99999999')).status).toBe(404);
+  });
+});
