@@ -2,6 +2,7 @@ import { useEffect, useId, useRef, useState } from 'react';
 import { Link, Outlet, useLocation, useNavigation } from 'react-router';
 import type { PublicUser } from '@shared/auth-schemas';
 import { useUser } from '../../features/auth/api/get-me';
+import { UnreadBadge } from '../../features/threads/components/unread-badge';
 import { Alert } from '../ui/alert';
 import { cx } from '../ui/cx';
 import { PAGE_WIDTH } from './content-layout';
@@ -89,10 +90,12 @@ function SiteHeader({ user }: { user: PublicUser | null }) {
         <nav aria-label="Main" className="hidden xl:block">
           <SiteNav user={user} layout="bar" />
         </nav>
-        <div className="ml-auto hidden xl:block">
+        <div className="ml-auto hidden items-center gap-4 xl:flex">
+          <UnreadBadge user={user} />
           <UserMenu user={user} layout="bar" />
         </div>
         <div className="ml-auto flex min-w-0 items-center gap-3 xl:hidden">
+          <UnreadBadge user={user} className="shrink-0" />
           {user && <span className="min-w-0 truncate font-bold">{user.displayName}</span>}
           <button
             ref={menuButtonRef}

@@ -1,0 +1,147 @@
+// The one socket.io connection of the signed-in person. It lives as long as the session: made
+// when someone signs in, dropped at sign-out, and remade when a different person signs in on
+// the same tab (the handshake carries the session cookie, so a socket never outlives its user).
+import { useEffect, useSyncExternalStore } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
+import { io, type Socket } from 'socket.io-client';
+import type { ClientToServerEvents, ServerToClientEvents } from '@shared/socket-events';
+import { authKeys } from '../features/auth/api/auth-keys';
+import { useUser } from '../features/auth/api/get-me';
+
+export type LiveSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
+
+/** 'connecting' only until the first answer after sign-in; after that a drop is 'offline'
+ * until the connection is back, so the banner does not flicker with every retry. */
+export type ConnectionState = 'connecting' | 'online' | 'offline';
+
+interface Snapshot {
+  socket: LiveSocket | null;
+  userId: number | null;
+  state: ConnectionState;
+}
+
+let snapshot: Snapshot = { socket: null, userId: null, state: 'connecting' };
+const listeners = new Set<() => void>();
+
+function publish(next: Partial<Snapshot>): void {
+  snapshot = { ...snapshot, ...next };
+  for (const listener of listeners) listener();
+}
+
+function subscribe(listener: () => void): () => void {
+  listeners.add(listener);
+  return () => listeners.delete(listener);
+}
+
+const getSnapshot = () => snapshot;
+
+// The browser knows about a lost network long before socket.io's ping timeout (up to 45 s) does.
+function onBrowserOffline(): void {
+  if (snapshot.socket) publish({ state: 'offline' });
+}
+
+function onBrowserOnline(): void {
+  const socket = snapshot.socket;
+  if (!socket) return;
+  if (socket.connected) publish({ state: 'online' });
+  // Skip the rest of socket.io's back-off: the network is back now.
+  else socket.connect();
+}
+
+if (typeof window !== 'undefined') {
+  window.addEventListener('offline', onBrowserOffline);
+  window.addEventListener('online', onBrowserOnline);
+}
+
+function createSocket(): LiveSocket {
+  const socket: LiveSocket = io({
+    path: '/socket.io',
+    // Websocket first: the fan-out adapter across processes needs it or sticky sessions.
+    transports: ['websocket', 'polling'],
+    withCredentials: true,
+    autoConnect: false,
+    reconnectionDelayMax: 10_000,
+  });
+  socket.on('connect', () => publish({ state: 'online' }));
+  socket.on('disconnect', () => publish({ state: 'offline' }));
+  socket.on('connect_error', () => publish({ state: 'offline' }));
+  return socket;
+}
+
+/** Makes sure the socket belongs to `userId` (null: nobody signed in, no socket). */
+export function bindSocketToUser(userId: number | null): LiveSocket | null {
+  if (snapshot.userId === userId && (snapshot.socket || userId === null)) return snapshot.socket;
+  snapshot.socket?.removeAllListeners();
+  snapshot.socket?.disconnect();
+  if (userId === null) {
+    publish({ socket: null, userId: null, state: 'connecting' });
+    return null;
+  }
+  const socket = createSocket();
+  publish({ socket, userId, state: 'connecting' });
+  socket.connect();
+  return socket;
+}
+
+export function getSocket(): LiveSocket | null {
+  return snapshot.socket;
+}
+
+/** Listeners that must hear when the person behind the socket changes (e.g. unsent messages
+ * of the previous person are dropped, so nothing is sent under someone else's name). */
+export function onSocketUserChange(listener: (userId: number | null) => void): () => void {
+  let last = snapshot.userId;
+  return subscribe(() => {
+    if (snapshot.userId === last) return;
+    last = snapshot.userId;
+    listener(last);
+  });
+}
+
+/** Sockets whose session is already watched (see useLiveSocket). */
+const watched = new WeakSet<LiveSocket>();
+
+/**
+ * Keeps the socket in step with the session and returns it (null for a visitor). Safe to call
+ * from several components: they all share the one connection.
+ */
+export function useLiveSocket(): LiveSocket | null {
+  const queryClient = useQueryClient();
+  const userId = useUser().data?.id ?? null;
+  const current = useSyncExternalStore(subscribe, getSnapshot, getSnapshot);
+
+  useEffect(() => {
+    const socket = bindSocketToUser(userId);
+    if (!socket || watched.has(socket)) return;
+    watched.add(socket);
+    // The server drops a socket whose session ended (signed out in another tab, account
+    // disabled), and refuses a handshake without a live session; socket.io retries neither.
+    // Asking who is signed in settles it: the header shows the truth, and if the session is
+    // still good the socket comes back (at most once a minute, so a fault cannot spin).
+    let lastRecheck = 0;
+    const recheckSession = () => {
+      if (Date.now() - lastRecheck < 60_000) return;
+      lastRecheck = Date.now();
+      void queryClient.invalidateQueries({ queryKey: authKeys.me() }).then(() => {
+        const stillSignedIn = queryClient.getQueryData<{ id: number } | null>(authKeys.me())?.id === userId;
+        if (stillSignedIn && snapshot.socket === socket && !socket.active) socket.connect();
+      });
+    };
+    const onDisconnect = (reason: string) => {
+      if (reason === 'io server disconnect') recheckSession();
+    };
+    const onRefused = (error: Error & { data?: { code?: string } }) => {
+      if (error.data?.code === 'unauthorized') recheckSession();
+    };
+    // Kept for the socket's whole life (however many components share it); a replaced socket
+    // loses its listeners in bindSocketToUser.
+    socket.on('disconnect', onDisconnect);
+    socket.on('connect_error', onRefused);
+  }, [userId, queryClient]);
+
+  return current.userId === userId ? current.socket : null;
+}
+
+export function useConnectionState(): ConnectionState {
+  return useSyncExternalStore(subscribe, () => snapshot.state, () => 'connecting' as const);
+}
