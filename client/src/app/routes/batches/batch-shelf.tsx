@@ -7,6 +7,7 @@ import { Card } from '../../../components/ui/card';
 import { Spinner } from '../../../components/ui/spinner';
 import { batchesQueryOptions, useBatches } from '../../../features/batches/api/get-batches';
 import { BatchShelfTable } from '../../../features/batches/components/batch-shelf-table';
+import { MyCasesList } from '../../../features/cases/components/my-cases-list';
 
 export const clientLoader = (queryClient: QueryClient) => async () => {
   // Warm the cache without failing the page: the page shows its own error with a way to retry.
@@ -44,6 +45,12 @@ export default function BatchShelfRoute() {
       ) : (
         <BatchShelfTable batches={batches.data.items} />
       )}
+      <section aria-labelledby="my-cases-heading" className="mt-12">
+        <h2 id="my-cases-heading" className="mb-4 text-2xl font-extrabold">
+          Your cases
+        </h2>
+        <MyCasesList />
+      </section>
     </ContentLayout>
   );
 }

@@ -60,7 +60,8 @@ function CheckResult({ result, subHeading: SubHeading }: { result: BatchCheckRes
         <dd className="font-bold">{ratioText(result.ratio)}</dd>
         <dt className="text-loam-soft">Usual rule</dt>
         <dd>{targetText(result.targetRatio)}</dd>
-        {result.sugarToAdd.grams > 0 && (
+        {/* With a discard sign, more sugar is not the answer. */}
+        {result.sugarToAdd.grams > 0 && result.discardSigns.length === 0 && (
           <>
             <dt className="text-loam-soft">Sugar to add</dt>
             <dd className="font-bold">{formatMass(result.sugarToAdd.grams, unit)}</dd>

@@ -8,6 +8,7 @@ import {
   useReactTable,
   type SortingState,
 } from '@tanstack/react-table';
+import { STAGE_SUGAR_RULES } from '@shared/batch-check';
 import type { BatchCheckSummary, BatchView } from '@shared/case-schemas';
 import { cx } from '../../../components/ui/cx';
 import { RiskBadge } from '../../batch-check/components/risk-badge';
@@ -70,6 +71,7 @@ function missingWeights(batch: BatchView): string {
   if (!batch.culture) return 'No weights recorded';
   // IMO1 is gathered without sugar; only once kept does it get its equal weight.
   if (batch.stage === 'IMO1') return 'Being gathered, no sugar yet';
+  if (STAGE_SUGAR_RULES[batch.stage].targetRatio === null) return `No sugar rule for ${batch.stage}`;
   return 'No sugar weight recorded';
 }
 

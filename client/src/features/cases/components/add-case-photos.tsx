@@ -23,7 +23,12 @@ export function AddCasePhotos({ caseId }: { caseId: number }) {
 
   return (
     <div className="flex flex-col gap-3">
-      <PhotoPicker photos={photos} label="Add photos" disabled={busy} />
+      <PhotoPicker
+        photos={photos}
+        label="More photos of the batch"
+        hint="Up to 6 at a time. They are made lighter before sending; only the grower of the case and the mentors can see them."
+        disabled={busy}
+      />
       {photos.pending > 0 && (
         <Button onClick={() => void send()} disabled={busy} className="self-start">
           {busy ? 'Sending…' : photos.pending === 1 ? 'Send this photo' : `Send these ${photos.pending} photos`}

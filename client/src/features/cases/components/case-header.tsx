@@ -66,7 +66,7 @@ export function CaseHeader({ detail, viewerId }: { detail: CaseDetail; viewerId:
       <div className="grid gap-5 md:grid-cols-2">
         <section aria-labelledby="case-signs-heading" className="flex flex-col gap-3">
           <h2 id="case-signs-heading" className="text-xl font-extrabold">
-            What the grower sees
+            What the batch is doing
           </h2>
           {detail.symptoms.length > 0 ? (
             <ul className="flex flex-wrap gap-2" aria-label="Symptoms">
@@ -130,7 +130,7 @@ export function CaseHeader({ detail, viewerId }: { detail: CaseDetail; viewerId:
                       <dd className="font-bold">about {check.waterActivity.estimate.toFixed(3)}</dd>
                     </>
                   )}
-                  {check.sugarToAdd.grams > 0 && (
+                  {check.sugarToAdd.grams > 0 && check.discardSigns.length === 0 && (
                     <>
                       <dt className="text-loam-soft">Sugar to add</dt>
                       <dd>{formatMass(check.sugarToAdd.grams, check.sugarToAdd.unit)}</dd>

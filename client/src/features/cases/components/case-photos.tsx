@@ -69,7 +69,11 @@ function PhotoViewer({
     <dialog
       ref={ref}
       aria-labelledby={headingId}
-      onClose={onClose}
+      onClose={() => {
+        // Closing in the effect's cleanup queues a close event; when the effect has opened the
+        // dialog again since (StrictMode runs effects twice), that stale event is not a close.
+        if (!ref.current?.open) onClose();
+      }}
       onKeyDown={(event) => {
         if (!many) return;
         if (event.key === 'ArrowRight') step(1);
