@@ -1,6 +1,5 @@
 // Cases: open, list (the rounds and a grower's own), read, batches like this, and private
 // photos. Mounted at /api/cases after the threads router (messages, claim, status, hand-over).
-import path from 'node:path';
 import { pipeline } from 'node:stream/promises';
 import { Router, type Request, type Response } from 'express';
 import { caseListQuerySchema, openCaseSchema, similarDraftSchema, similarQuerySchema } from '../../../shared/case-schemas';
@@ -8,14 +7,14 @@ import { toGrams } from '../../../shared/units';
 import type { AppContext } from '../../context';
 import { notFound } from '../../lib/errors';
 import { parseId, parseOr400, requireSignedIn, requireUser } from '../../lib/http';
-import { createLocalPhotoStore, type PhotoStore } from '../../lib/photo-store';
+import { createPhotoStore, type PhotoStore } from '../../lib/photo-store';
 import { readableCaseOr404 } from './case-access';
 import { casesRepository } from './cases.repository';
 import { casesService } from './cases.service';
 import { openPhoto, uploadPhotos } from './photos.service';
 import { findSimilarCases } from './similar.service';
 
-export function casesRouter(ctx: AppContext, store: PhotoStore = createLocalPhotoStore(path.resolve(ctx.config.UPLOAD_DIR))): Router {
+export function casesRouter(ctx: AppContext, store: PhotoStore = createPhotoStore(ctx.config)): Router {
   const router = Router();
 
   router.get('/', requireSignedIn, async (req, res) => {
@@ -48,7 +47,7 @@ export function casesRouter(ctx: AppContext, store: PhotoStore = createLocalPhot
     res.json(await casesService.read(requireUser(req), parseId(req.params.id, 'That case')));
   });
 
-  router.get('/:id/similar', async (req, res) => {
+  router.get('/:id/similar', requireSignedIn, async (req, res) => {
     const id = parseId(req.params.id, 'That case');
     await readableCaseOr404(req.user, id);
     const { limit } = parseOr400(similarQuerySchema, req.query);
