@@ -46,7 +46,7 @@ export function liveBatchCheck(draft: BatchCheckDraft): LiveBatchCheck {
 /** The sugar & water check, recomputed in the browser on every keystroke (it is a few dozen
  * arithmetic steps, so there is nothing to debounce and no round trip to wait for). */
 export function useLiveBatchCheck(draft: BatchCheckDraft): LiveBatchCheck {
+  // Keyed on the draft's content: forms hand over a new object on every render.
   const key = JSON.stringify(draft);
-  // eslint-disable-next-line react-hooks/exhaustive-deps -- keyed on the draft's content, not its identity
-  return useMemo(() => liveBatchCheck(draft), [key]);
+  return useMemo(() => liveBatchCheck(JSON.parse(key) as BatchCheckDraft), [key]);
 }

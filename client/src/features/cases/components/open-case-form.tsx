@@ -160,7 +160,9 @@ export function OpenCaseForm({ batch, onOpened }: { batch: BatchView | null; onO
   });
   const discard = discardNote(symptoms);
 
-  const draftNow = useMemo(() => similarDraftOf(watched), [JSON.stringify(watched)]); // eslint-disable-line react-hooks/exhaustive-deps
+  // useWatch hands back a new object on every render; the draft is keyed on its content.
+  const watchedKey = JSON.stringify(watched);
+  const draftNow = useMemo(() => similarDraftOf(JSON.parse(watchedKey) as Partial<OpenCaseFormValues>), [watchedKey]);
   const draft = useDebouncedValue(draftNow, 400);
   const similar = useSimilarToDraft(draft);
   const similarState =

@@ -110,7 +110,7 @@ export function PhotoPicker({
                     type="button"
                     onClick={() => photos.remove(draft.key)}
                     disabled={disabled}
-                    className="mt-auto inline-flex min-h-11 items-center self-start rounded-soft px-2 text-sm font-bold text-moss-deep underline underline-offset-4 hover:bg-moss-mist"
+                    className="mt-auto inline-flex min-h-11 items-center self-start rounded-soft px-2 text-sm font-bold text-moss-deep underline underline-offset-4 hover:bg-moss-mist disabled:cursor-not-allowed disabled:no-underline disabled:opacity-60"
                   >
                     Remove<span className="sr-only"> {draft.name}</span>
                   </button>

@@ -117,6 +117,8 @@ export function usePhotoDrafts({ limit = MAX_PHOTOS_PER_UPLOAD }: { limit?: numb
       let sent = 0;
       let failed = 0;
       for (const draft of draftsRef.current) {
+        // Removed while an earlier photo was going up.
+        if (!draftsRef.current.some((d) => d.key === draft.key)) continue;
         if (draft.status !== 'ready' && !(draft.status === 'failed' && draft.blob)) {
           if (draft.status === 'failed') failed++;
           continue;
