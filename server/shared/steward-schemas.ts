@@ -176,3 +176,30 @@ export interface CaughtMail {
   text: string | null;
   receivedAt: string;
 }
+
+/** Every list route answers this shape. */
+export interface Paged<T> {
+  items: T[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
+/** What POST /api/messages/:id/reports answers (201 new, 200 when this person's report was already open). */
+export interface ReportReceipt {
+  id: number;
+  messageId: number;
+  reason: string;
+  status: 'open';
+  createdAt: string;
+  alreadyReported: boolean;
+}
+
+/** What POST /api/steward/messages/:id/hide answers. */
+export interface HiddenMessage {
+  id: number;
+  caseId: number;
+  hidden: true;
+  hiddenAt: string;
+  reportsClosed: number;
+}

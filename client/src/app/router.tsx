@@ -72,6 +72,7 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: 'library/:slug', ...page(() => import('./routes/library/field-note')) },
         { path: 'steward', ...page(() => import('./routes/steward/steward-desk'), ['steward']) },
         { path: 'mentors/:id', ...page(() => import('./routes/mentors/mentor-profile'), 'signed-in') },
+        { path: 'apply-to-mentor', ...page(() => import('./routes/mentors/apply'), 'signed-in') },
         { path: '*', ...page(() => import('./routes/not-found')) },
       ],
     },

@@ -49,6 +49,11 @@ export default function LandingRoute() {
         {user ? (
           <p className="mt-5">
             Signed in as {user.displayName}. <Link to="/batches">Go to your batch shelf</Link>
+            {user.role === 'grower' && (
+              <>
+                {' '}· Made many batches? <Link to="/apply-to-mentor">Apply to mentor</Link>
+              </>
+            )}
           </p>
         ) : (
           <p className="mt-5">

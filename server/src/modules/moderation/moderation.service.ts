@@ -1,6 +1,7 @@
 // Reporting and hiding messages. A hidden message keeps its text in the database and in the
 // audit row (the record of what was said and who hid it); every serializer sends the
 // placeholder instead, and open threads are told to drop the text at once.
+import type { HiddenMessage, ReportReceipt } from '../../../shared/steward-schemas';
 import type { AppContext } from '../../context';
 import { getSequelize } from '../../db/sequelize';
 import { AppError, conflict, notFound } from '../../lib/errors';
@@ -9,16 +10,6 @@ import { audit } from '../audit/audit';
 import { canReadCase, findCaseForAccess, seesAsides } from '../cases/case-access';
 import { announceMessageHidden } from '../threads/thread-events';
 import { moderationRepository } from './moderation.repository';
-
-export interface ReportReceipt {
-  id: number;
-  messageId: number;
-  reason: string;
-  status: 'open';
-  createdAt: string;
-  /** true when this person had already reported the message and the report is still open */
-  alreadyReported: boolean;
-}
 
 /** Anyone who can see the message in its thread may report it; anyone else gets a 404. */
 export async function reportMessage(user: Express.User, messageId: number, reason: string): Promise<ReportReceipt> {
@@ -43,7 +34,7 @@ export async function reportMessage(user: Express.User, messageId: number, reaso
   return { id, messageId, reason, status: 'open', createdAt: report.createdAt, alreadyReported: false };
 }
 
-export async function hideMessage(_ctx: AppContext, steward: Express.User, messageId: number, note: string) {
+export async function hideMessage(_ctx: AppContext, steward: Express.User, messageId: number, note: string): Promise<HiddenMessage> {
   const outcome = await getSequelize().transaction(async (transaction) => {
     const message = await moderationRepository.findMessage(messageId, { lock: true, transaction });
     if (!message) throw notFound('That message');
@@ -63,7 +54,7 @@ export async function hideMessage(_ctx: AppContext, steward: Express.User, messa
   });
   log.security('steward.message_hidden', { actorId: steward.id, messageId, caseId: outcome.caseId, reports: outcome.reportIds.length });
   announceMessageHidden(outcome.caseId, messageId);
-  return { id: messageId, caseId: outcome.caseId, hidden: true as const, hiddenAt: new Date(outcome.hiddenAt).toISOString(), reportsClosed: outcome.reportIds.length };
+  return { id: messageId, caseId: outcome.caseId, hidden: true, hiddenAt: new Date(outcome.hiddenAt).toISOString(), reportsClosed: outcome.reportIds.length };
 }
 
 export async function dismissReport(steward: Express.User, reportId: number, note: string) {

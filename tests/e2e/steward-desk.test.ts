@@ -1,0 +1,136 @@
+import { createRequire } from 'node:module';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { DESKTOP, launch, newContext, PHONE, shot, signIn } from './browser';
+
+const axeSource: string = createRequire(import.meta.url)('axe-core').source;
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+/** Serious and critical axe findings on the page as it is now. */
+async function axeProblems(page: Page): Promise<string[]> {
+  // Evaluated through the debugging protocol: the page's CSP rightly refuses inline scripts.
+  await page.evaluate(axeSource);
+  return page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run: () => Promise<{ violations: Array<{ id: string; impact: string | null; nodes: unknown[] }> }> } }).axe;
+    const { violations } = await axe.run();
+    return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id} (${v.nodes.length})`);
+  });
+}
+
+/** A new grower, signed in through the join API in this context, as a newcomer would be. */
+async function newGrower(context: BrowserContext): Promise<{ name: string; email: string }> {
+  const stamp = Date.now().toString(36);
+  const grower = { name: `Hazel Quinby ${stamp}`, email: `hazel-${stamp}@example.test` };
+  const res = await context.request.post('/api/auth/register', {
+    data: { email: grower.email, password: 'fern-and-bran-every-spring', displayName: grower.name },
+  });
+  expect(res.status()).toBe(201);
+  return grower;
+}
+
+describe('a grower becomes a mentor through the steward desk', () => {
+  test('when a grower applies and the demo steward approves in the steward desk, then the new mentor sees the rounds without signing in again', async () => {
+    // The grower, on a phone.
+    const growerContext = await newContext(browser, PHONE);
+    const grower = await newGrower(growerContext);
+    const growerPage = await growerContext.newPage();
+    await growerPage.goto('/');
+    await growerPage.getByRole('link', { name: 'Apply to mentor' }).click();
+    await expect.poll(() => new URL(growerPage.url()).pathname).toBe('/apply-to-mentor');
+    await growerPage.getByRole('heading', { level: 1, name: 'Apply to mentor' }).waitFor();
+    // An empty form is refused in the browser, saying what is missing.
+    await growerPage.getByRole('button', { name: 'Send my application' }).click();
+    await expect.poll(() => growerPage.getByText('Choose at least one stage you know well.').isVisible()).toBe(true);
+    await growerPage.getByLabel(/^IMO1/).check();
+    await growerPage.getByLabel(/^LAB/).check();
+    await growerPage.getByLabel('Your experience').fill('Four springs of IMO1 from the beech hanger, and LAB from rice wash every month for the polytunnel beds.');
+    await growerPage.getByLabel('Where you grow').fill('Larchmere Commons, upper terraces');
+    await shot(growerPage, 'apply-to-mentor-phone');
+    expect(await axeProblems(growerPage)).toEqual([]);
+    await growerPage.getByRole('button', { name: 'Send my application' }).click();
+    await growerPage.getByText('Your application is with the stewards').waitFor();
+
+    // Still a grower: the rounds are not for them yet.
+    await growerPage.goto('/rounds');
+    await growerPage.getByRole('heading', { level: 1, name: 'This page is not for your role' }).waitFor();
+
+    // The demo steward, at a desk.
+    const stewardContext = await newContext(browser, DESKTOP);
+    const stewardPage = await stewardContext.newPage();
+    await signIn(stewardPage, 'steward@example.test');
+    await expect.poll(() => new URL(stewardPage.url()).pathname).not.toBe('/sign-in');
+    await stewardPage.goto('/steward');
+    await stewardPage.getByRole('heading', { level: 3, name: 'Open cases right now, by urgency' }).waitFor();
+    await shot(stewardPage, 'steward-desk-health-desktop');
+    expect(await axeProblems(stewardPage)).toEqual([]);
+
+    await stewardPage.getByRole('tab', { name: /Mentor applications/ }).click();
+    const card = stewardPage.getByRole('group', { name: grower.name });
+    await card.waitFor();
+    await card.getByLabel(`Note to ${grower.name}`).fill('Welcome to the rounds — start with the IMO cases.');
+    await shot(stewardPage, 'steward-desk-applications-desktop');
+    expect(await axeProblems(stewardPage)).toEqual([]);
+    await card.getByRole('button', { name: `Approve ${grower.name} as a mentor` }).click();
+    await stewardPage.getByText(`${grower.name} is a mentor now and has been e-mailed.`).waitFor();
+
+    // The same grower session, no new sign-in: a full page load reads the role afresh.
+    await growerPage.goto('/rounds');
+    await growerPage.getByRole('heading', { level: 1, name: 'Rounds' }).waitFor();
+    expect(await growerPage.getByText('This page is not for your role').count()).toBe(0);
+    await growerPage.waitForLoadState('networkidle');
+    await shot(growerPage, 'new-mentor-rounds-phone');
+
+    // The decision went out by e-mail; the local catcher holds it on the Mail tab (the outbox
+    // worker sends within a second or so, so the tab is reopened until it is there).
+    const approvalMail = stewardPage.locator('summary', { hasText: 'You are now a Sporewell mentor' }).filter({ hasText: grower.email });
+    await expect
+      .poll(
+        async () => {
+          await stewardPage.getByRole('tab', { name: 'Audit log' }).click();
+          await stewardPage.getByRole('tab', { name: 'Mail' }).click();
+          await stewardPage.getByText(/caught here instead of delivered/).waitFor();
+          await stewardPage.waitForLoadState('networkidle');
+          return approvalMail.count();
+        },
+        { timeout: 20_000 },
+      )
+      .toBeGreaterThan(0);
+    await approvalMail.first().click();
+    await stewardPage.getByText('Welcome to the rounds — start with the IMO cases.').first().waitFor();
+    await stewardPage.getByRole('tab', { name: 'Audit log' }).click();
+    await stewardPage.getByText(`approved ${grower.name}'s application to mentor`).waitFor();
+    await shot(stewardPage, 'steward-desk-audit-desktop');
+
+    await growerContext.close();
+    await stewardContext.close();
+  });
+
+  test('when the demo steward opens the desk on a phone, then every tab is reachable and the health charts have their text', async () => {
+    const context = await newContext(browser, PHONE);
+    const page = await context.newPage();
+    await signIn(page, 'steward@example.test');
+    await expect.poll(() => new URL(page.url()).pathname).not.toBe('/sign-in');
+    await page.goto('/steward');
+    await page.getByRole('heading', { level: 3, name: 'Cases opened per week, by stage' }).waitFor();
+    expect(await page.getByText('The numbers as a table').count()).toBeGreaterThanOrEqual(5);
+    await shot(page, 'steward-desk-health-phone');
+    expect(await axeProblems(page)).toEqual([]);
+    for (const tab of ['People', 'Reports', 'Audit log']) {
+      await page.getByRole('tab', { name: new RegExp(`^${tab}`) }).click();
+      await expect.poll(() => page.getByRole('tab', { name: new RegExp(`^${tab}`) }).getAttribute('aria-selected')).toBe('true');
+    }
+    await page.getByRole('tab', { name: /^People/ }).click();
+    await page.getByLabel('Search by name or e-mail').fill('Marta');
+    await page.getByText('mentor@example.test').waitFor();
+    await shot(page, 'steward-desk-people-phone');
+    expect(await axeProblems(page)).toEqual([]);
+    await context.close();
+  });
+});
