@@ -28,6 +28,14 @@ export const envSchema = z
     TRUST_PROXY: boolish.default(false),
     SEED_DEMO: boolish.optional(),
     LOG_LEVEL: z.enum(['silent', 'error', 'info', 'debug']).default('info'),
+    // Photos in an S3-compatible bucket instead of UPLOAD_DIR (several processes or hosts).
+    S3_BUCKET: z.string().min(3, 'S3_BUCKET must be a bucket name.').optional(),
+    S3_ENDPOINT: z.url({ protocol: /^https?$/, error: 'S3_ENDPOINT must be a full http:// or https:// URL.' }).optional(),
+    S3_REGION: z.string().min(1).optional(),
+    S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+    S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+    /** most self-hosted S3-compatible stores want bucket names in the path, not the host */
+    S3_FORCE_PATH_STYLE: boolish.optional(),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.PUBLIC_URL) {
@@ -36,7 +44,20 @@ export const envSchema = z
     if (env.NODE_ENV === 'production' && !env.SMTP_URL) {
       ctx.addIssue({ code: 'custom', path: ['SMTP_URL'], message: 'SMTP_URL is required in production.' });
     }
+    // Half an S3 setting would quietly keep photos on one machine's disk: all of it or none.
+    const given = S3_SETTINGS.filter((name) => env[name] !== undefined);
+    const missing = S3_REQUIRED.filter((name) => env[name] === undefined);
+    if (given.length && missing.length) {
+      ctx.addIssue({
+        code: 'custom',
+        path: [missing[0]],
+        message: `S3 photo storage needs ${S3_REQUIRED.join(', ')} together; missing ${missing.join(', ')}. Set them all, or unset every S3_ setting to keep photos in UPLOAD_DIR.`,
+      });
+    }
   });
+
+const S3_REQUIRED = ['S3_BUCKET', 'S3_ENDPOINT', 'S3_REGION', 'S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY'] as const;
+const S3_SETTINGS = [...S3_REQUIRED, 'S3_FORCE_PATH_STYLE'] as const;
 
 export type Env = z.infer<typeof envSchema>;
 
@@ -45,6 +66,17 @@ export interface Config extends Env {
   secureCookies: boolean;
   /** True when no SMTP_URL is given: a mail catcher on loopback receives the mail. */
   useMailCatcher: boolean;
+  /** The photo bucket when every S3_ setting is given; null keeps photos in UPLOAD_DIR. */
+  s3: S3Settings | null;
+}
+
+export interface S3Settings {
+  bucket: string;
+  endpoint: string;
+  region: string;
+  accessKeyId: string;
+  secretAccessKey: string;
+  forcePathStyle: boolean;
 }
 
 export class ConfigError extends Error {
@@ -68,5 +100,15 @@ export function parseConfig(source: Record<string, string | undefined> = process
     publicUrl,
     secureCookies: publicUrl.startsWith('https://'),
     useMailCatcher: !env.SMTP_URL,
+    s3: env.S3_BUCKET
+      ? {
+          bucket: env.S3_BUCKET,
+          endpoint: env.S3_ENDPOINT!,
+          region: env.S3_REGION!,
+          accessKeyId: env.S3_ACCESS_KEY_ID!,
+          secretAccessKey: env.S3_SECRET_ACCESS_KEY!,
+          forcePathStyle: env.S3_FORCE_PATH_STYLE ?? false,
+        }
+      : null,
   };
 }

@@ -1,10 +1,13 @@
-// Where photo bytes live. Kept to three calls so an S3-compatible store can stand in later
-// (PRODUCT.md "How it runs"). Keys are chosen here, never from a client's file name, and a key
-// that does not look like one of ours is refused before it reaches the file system.
+// Where photo bytes live. Kept to three calls so an S3-compatible store stands in when several
+// processes share the work (PRODUCT.md "How it runs"): local disk by default, the bucket when
+// every S3_ setting is given. Keys are chosen here, never from a client's file name, and a key
+// that does not look like one of ours is refused before it reaches the file system or bucket.
 import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import type { Readable } from 'node:stream';
+import type { Config } from '../config/env';
+import { createS3PhotoStore, type S3PhotoStore } from './s3-photo-store';
 
 export interface StoredPhoto {
   stream: Readable;
@@ -69,4 +72,22 @@ export function createLocalPhotoStore(rootDir: string): PhotoStore {
       await fs.promises.rm(fileOf(key), { force: true });
     },
   };
+}
+
+const s3Stores = new Map<string, S3PhotoStore>();
+
+/** The store this configuration names; one S3 client per bucket and endpoint, shared by the routers. */
+export function createPhotoStore(config: Pick<Config, 's3' | 'UPLOAD_DIR'>): PhotoStore {
+  if (!config.s3) return createLocalPhotoStore(path.resolve(config.UPLOAD_DIR));
+  const id = `${config.s3.endpoint}|${config.s3.bucket}|${config.s3.accessKeyId}`;
+  let store = s3Stores.get(id);
+  if (!store) s3Stores.set(id, (store = createS3PhotoStore(config.s3)));
+  return store;
+}
+
+/** Ends the bucket clients' connections (the server's graceful stop). */
+export async function closePhotoStores(): Promise<void> {
+  const stores = [...s3Stores.values()];
+  s3Stores.clear();
+  await Promise.all(stores.map((s) => s.close()));
 }

@@ -6,13 +6,13 @@ import { Router, type Response } from 'express';
 import { libraryQuerySchema } from '../../../shared/library-schemas';
 import type { AppContext } from '../../context';
 import { parseId, parseOr400 } from '../../lib/http';
-import { createLocalPhotoStore } from '../../lib/photo-store';
+import { createPhotoStore } from '../../lib/photo-store';
 import { notFound } from '../../lib/errors';
 import { getLibraryEntry, notePhotoKey, searchLibrary } from './library.service';
 
 export function libraryRouter(ctx: AppContext): Router {
   const router = Router();
-  const photos = createLocalPhotoStore(ctx.config.UPLOAD_DIR);
+  const photos = createPhotoStore(ctx.config);
 
   router.get('/', async (req, res) => {
     const query = parseOr400(libraryQuerySchema, req.query, 'That search needs fixing.');

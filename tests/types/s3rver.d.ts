@@ -1,0 +1,19 @@
+// @20minutes/s3rver ships without type declarations; the tests use it as a local S3 fake.
+declare module '@20minutes/s3rver' {
+  import type { AddressInfo } from 'node:net';
+
+  interface S3rverOptions {
+    address?: string;
+    port?: number;
+    silent?: boolean;
+    directory?: string;
+    resetOnClose?: boolean;
+    configureBuckets?: { name: string }[];
+  }
+
+  export default class S3rver {
+    constructor(options: S3rverOptions);
+    run(): Promise<AddressInfo>;
+    close(): Promise<void>;
+  }
+}
