@@ -5,6 +5,7 @@ import { cx } from '../../../components/ui/cx';
 import { ROLE_LABELS } from '../../../lib/auth';
 import type { PendingMessage } from '../lib/outbox';
 import { fullTime, messageTime } from '../lib/time-words';
+import { ReportMessageButton } from '../../moderation/components/report-message-button';
 import { MessageBody } from './message-body';
 
 export const ASIDE_LABEL = 'Mentor aside — growers never see this';
@@ -103,6 +104,9 @@ export function MessageItem({ message, mine }: { message: ThreadMessage; mine: b
                   </li>
                 ))}
               </ul>
+            )}
+            {!mine && (
+              <ReportMessageButton messageId={message.id} authorName={author?.displayName} className="mt-2" />
             )}
           </>
         )}
