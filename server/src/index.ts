@@ -14,6 +14,7 @@ import { closeSequelize, initSequelize } from './db/sequelize';
 import { seedDemo } from './db/seeders/demo';
 import { startMailCatcher, type MailCatcher } from './lib/mail-catcher';
 import { log, setLogLevel } from './lib/logger';
+import { closePhotoStores } from './lib/photo-store';
 import { createSessionKit } from './lib/session';
 import { attachRealtime } from './realtime/realtime';
 import { startUrgentCaseWatcher } from './modules/threads/urgent-watcher';
@@ -41,7 +42,8 @@ export async function startServer(options: StartOptions = {}): Promise<RunningSe
   const config = parseConfig(options.env ?? process.env);
   setLogLevel(config.LOG_LEVEL);
   setArgonMemory(config.ARGON2_MEMORY_KIB);
-  fs.mkdirSync(path.resolve(config.UPLOAD_DIR), { recursive: true });
+  // With a bucket configured, photos never touch this machine's disk.
+  if (!config.s3) fs.mkdirSync(path.resolve(config.UPLOAD_DIR), { recursive: true });
 
   const sequelize = initSequelize(config.DATABASE_URL, { poolMax: 20 });
   initModels(sequelize);
@@ -67,7 +69,9 @@ export async function startServer(options: StartOptions = {}): Promise<RunningSe
   const app = buildApp(ctx);
   const server = http.createServer(app);
   server.keepAliveTimeout = 65_000;
-  const realtime = attachRealtime(server, ctx);
+  // Fan-out through PostgreSQL always: another process may join this database at any time.
+  const realtime = attachRealtime(server, ctx, { fanoutDatabaseUrl: config.DATABASE_URL });
+  await realtime.ready;
   const urgentWatcher = startUrgentCaseWatcher(ctx);
   const libraryWork = await startLibraryWork(config, ctx.pokeMail);
 
@@ -92,6 +96,7 @@ export async function startServer(options: StartOptions = {}): Promise<RunningSe
       await worker.stop();
       transport.close();
       await catcher?.close();
+      await closePhotoStores();
       await sessions.close();
       await closeSequelize();
     })());
@@ -112,7 +117,7 @@ async function main(): Promise<void> {
     };
     process.once('SIGINT', () => stop('SIGINT'));
     process.once('SIGTERM', () => stop('SIGTERM'));
-    process.send?.({ type: 'listening', url: running.url, port: running.port });
+    process.send?.({ type: 'listening', url: running.url, port: running.port, mailCatcherPort: running.mailCatcherPort });
   } catch (error) {
     console.error((error as Error).message);
     process.exit(1);

@@ -1,6 +1,8 @@
 // socket.io on the HTTP server: Origin check, the Express session on the handshake, the person
 // re-read from the database, rooms per case / user / session, and the publisher the thread
 // services hand their stored changes to. Sign-out and disabled accounts drop sockets at once.
+// With fan-out (startServer), every room emit, fetchSockets and disconnectSockets below reaches
+// the sockets of every process on the database, so none of them needs to know where a socket is.
 import type http from 'node:http';
 import type { NextFunction, Request, Response } from 'express';
 import { QueryTypes } from 'sequelize';
@@ -12,24 +14,33 @@ import { sessionEvents } from '../lib/session-events';
 import { messagesRepository } from '../modules/threads/messages.repository';
 import { addThreadPublisher, type PublishOptions, type ThreadChange, type ThreadPublisher } from '../modules/threads/thread-events';
 import { usersRepository } from '../modules/users/users.repository';
+import { attachFanout, type Fanout } from './fanout';
 import { caseRoom, caseStaffRoom, sessionRoom, STAFF_ROOM, userRoom } from './rooms';
 import { loadSessionUser, originGuard, refusal, type SessionRequest } from './socket-auth';
-import { errorAck, registerThreadHandlers, type ThreadServer } from './thread-handlers';
+import { errorAck, presenceSettled, registerThreadHandlers, type ThreadServer } from './thread-handlers';
 
 export interface Realtime {
   io: ThreadServer;
+  /** Resolves when the socket layer can serve: at once alone, after LISTEN with fan-out. */
+  ready: Promise<void>;
   close(): Promise<void>;
+}
+
+export interface RealtimeOptions {
+  /** Fan out through this database to the other processes on it (the PostgreSQL adapter). */
+  fanoutDatabaseUrl?: string;
 }
 
 /** A message is at most 5,000 characters; 64 KiB leaves room for the envelope and nothing more. */
 const MAX_PAYLOAD_BYTES = 64 * 1024;
 
-export function attachRealtime(httpServer: http.Server, ctx: AppContext): Realtime {
+export function attachRealtime(httpServer: http.Server, ctx: AppContext, options: RealtimeOptions = {}): Realtime {
   const io: ThreadServer = new Server(httpServer, {
     serveClient: false,
     maxHttpBufferSize: MAX_PAYLOAD_BYTES,
     allowRequest: originGuard(ctx.config.publicUrl),
   });
+  const fanout: Fanout | null = options.fanoutDatabaseUrl ? attachFanout(io, options.fanoutDatabaseUrl) : null;
 
   // The session is read on the handshake request only (later polling requests carry the
   // engine's sid); the person behind it is then loaded by the middleware below.
@@ -85,12 +96,17 @@ export function attachRealtime(httpServer: http.Server, ctx: AppContext): Realti
 
   return {
     io,
+    ready: fanout?.ready ?? Promise.resolve(),
     async close() {
       sessionEvents.off('session:ended', onSessionEnded);
       sessionEvents.off('user:sessions-ended', onUserSessionsEnded);
       sessionEvents.off('user:changed', onUserChanged);
       removePublisher();
-      io.disconnectSockets(true);
+      // Only this process's sockets: io.disconnectSockets() would drop every process's.
+      io.local.disconnectSockets(true);
+      // The people on those sockets leave the presence lists of the other processes' viewers.
+      await presenceSettled(2_000);
+      await fanout?.close();
       // Not io.close(): that also closes the HTTP server, which startServer closes itself.
       io.engine.close();
     },

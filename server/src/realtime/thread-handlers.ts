@@ -52,6 +52,17 @@ async function announcePresence(io: ThreadServer, caseId: number): Promise<Prese
   return present;
 }
 
+/** Presence announced after a disconnect, still asking the other processes who is there. */
+const leavingAnnouncements = new Set<Promise<unknown>>();
+
+/** Waits (at most `ms`) for those announcements, so a stopping process still says who left. */
+export async function presenceSettled(ms: number): Promise<void> {
+  if (!leavingAnnouncements.size) return;
+  let timer: NodeJS.Timeout | undefined;
+  await Promise.race([Promise.allSettled([...leavingAnnouncements]), new Promise((resolve) => (timer = setTimeout(resolve, ms)))]);
+  clearTimeout(timer);
+}
+
 export function registerThreadHandlers(io: ThreadServer, socket: ThreadSocket, ctx: AppContext): void {
   /** The person again, fresh from the session and users tables; null when the session or account is gone. */
   const freshUser = async (): Promise<Express.User | null> => {
@@ -146,6 +157,13 @@ export function registerThreadHandlers(io: ThreadServer, socket: ThreadSocket, c
     leaving = [...socket.rooms].map(caseIdOfRoom).filter((id): id is number => id !== null);
   });
   socket.on('disconnect', () => {
-    for (const caseId of leaving) announcePresence(io, caseId).catch(errorAck);
+    if (!leaving.length) return;
+    // A tick later, so that when a stopping process drops all its sockets at once, every
+    // announcement is made after all of them are gone and none lists a socket that just left.
+    const announced = new Promise((resolve) => setImmediate(resolve)).then(() =>
+      Promise.all(leaving.map((caseId) => announcePresence(io, caseId).catch(errorAck))),
+    );
+    leavingAnnouncements.add(announced);
+    void announced.finally(() => leavingAnnouncements.delete(announced));
   });
 }
