@@ -67,6 +67,7 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: 'batches/:id/label', ...page(() => import('./routes/batches/batch-label'), 'signed-in') },
         { path: 'cases/new', ...page(() => import('./routes/cases/open-case'), 'signed-in') },
         { path: 'cases/:id', ...page(() => import('./routes/cases/case-page'), 'signed-in') },
+        { path: 'cases/:id/recovery-report', ...page(() => import('./routes/cases/recovery-report'), 'signed-in') },
         { path: 'rounds', ...page(() => import('./routes/rounds/rounds'), ['mentor', 'steward']) },
         { path: 'library', ...page(() => import('./routes/library/field-library')) },
         { path: 'library/:slug', ...page(() => import('./routes/library/field-note')) },

@@ -12,6 +12,7 @@ import { getSequelize } from '../../db/sequelize';
 import { AppError, conflict, notFound } from '../../lib/errors';
 import { log } from '../../lib/logger';
 import { indexResolvedCases } from '../cases/search-index';
+import { labelsOf } from './library-ranking';
 
 export const NOTE_SOURCE = 'A Sporewell case: a community mentor’s advice and the grower’s own report of how the batch turned out. Not professional advice.';
 
@@ -167,10 +168,10 @@ export async function publishFieldNote(caseId: number, transaction?: Transaction
       : [];
     const note = buildFieldNote(source, photos);
     const [row] = await sequelize.query<{ slug: string }>(
-      `INSERT INTO library_entries (slug, kind, case_id, title, summary, body, stages, symptoms, cause, remedy, outcome, sources, detail, published_at, updated_at)
-       VALUES ($1, 'note', $2, $3, $4, $5, $6::text[], $7::text[], $8, $9, $10, $11::text[], $12::jsonb, COALESCE($13::timestamptz, now()), now())
+      `INSERT INTO library_entries (slug, kind, case_id, title, summary, body, stages, symptoms, cause, remedy, outcome, sources, detail, labels, published_at, updated_at)
+       VALUES ($1, 'note', $2, $3, $4, $5, $6::text[], $7::text[], $8, $9, $10, $11::text[], $12::jsonb, $14, COALESCE($13::timestamptz, now()), now())
        ON CONFLICT (case_id) DO UPDATE SET
-         slug = EXCLUDED.slug, title = EXCLUDED.title, summary = EXCLUDED.summary, body = EXCLUDED.body, stages = EXCLUDED.stages,
+         slug = EXCLUDED.slug, labels = EXCLUDED.labels, title = EXCLUDED.title, summary = EXCLUDED.summary, body = EXCLUDED.body, stages = EXCLUDED.stages,
          symptoms = EXCLUDED.symptoms, cause = EXCLUDED.cause, remedy = EXCLUDED.remedy, outcome = EXCLUDED.outcome,
          sources = EXCLUDED.sources, detail = EXCLUDED.detail, updated_at = now()
        RETURNING slug`,
@@ -178,6 +179,7 @@ export async function publishFieldNote(caseId: number, transaction?: Transaction
         bind: [
           note.slug, caseId, note.title, note.summary, note.body, [source.stage], source.symptoms, source.cause, source.remedy,
           source.outcome, [NOTE_SOURCE], JSON.stringify(note.detail), source.resolvedAt,
+          labelsOf({ stages: [source.stage], symptoms: source.symptoms, cause: source.cause, remedy: source.remedy }),
         ],
         type: QueryTypes.SELECT,
         transaction: t,
@@ -204,13 +206,14 @@ export async function unpublishFieldNote(caseId: number, transaction?: Transacti
   });
 }
 
-/** At start-up: every case marked published (e.g. by the demo seed) that has no note yet gets one.
- * Safe to run any number of times, and from two processes at once (each case is locked). */
+/** At start-up: every case marked published (e.g. by the demo seed) that has no note yet gets one,
+ * and a note written before labels were stored is refreshed. Safe to run any number of times,
+ * and from two processes at once (each case is locked). */
 export async function publishPendingNotes(): Promise<number> {
   const pending = await getSequelize().query<{ id: number }>(
     `SELECT c.id FROM cases c
       WHERE c.published AND c.consent_to_publish AND c.outcome IS NOT NULL AND c.status IN ('recovered', 'lost')
-        AND NOT EXISTS (SELECT 1 FROM library_entries e WHERE e.case_id = c.id)
+        AND NOT EXISTS (SELECT 1 FROM library_entries e WHERE e.case_id = c.id AND e.labels <> '')
       ORDER BY c.id`,
     { type: QueryTypes.SELECT },
   );

@@ -16,6 +16,7 @@ import { STAGE_IDS, SYMPTOM_IDS } from '../../../shared/vocabulary';
 import { getSequelize } from '../../db/sequelize';
 import { log } from '../../lib/logger';
 import { queryWords } from '../cases/search-index';
+import { labelsOf } from './library-ranking';
 import { invalidateRemedyRecords, SLUG_PATTERN } from './library.service';
 
 export const KNOWLEDGE_DIR = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../../../knowledge');
@@ -75,15 +76,18 @@ export async function loadKnowledge(options: { dir?: string; prune?: boolean } =
     const outcome: LoadResult = { inserted: [], updated: [], unchanged: 0, removed: [] };
     for (const guide of guides) {
       const rows = await sequelize.query<{ inserted: boolean }>(
-        `INSERT INTO library_entries (slug, kind, title, summary, body, stages, symptoms, sources, content_hash)
-         VALUES ($1, 'guide', $2, $3, $4, $5::text[], $6::text[], $7::text[], $8)
+        `INSERT INTO library_entries (slug, kind, title, summary, body, stages, symptoms, sources, content_hash, labels)
+         VALUES ($1, 'guide', $2, $3, $4, $5::text[], $6::text[], $7::text[], $8, $9)
          ON CONFLICT (slug) DO UPDATE SET
-           title = EXCLUDED.title, summary = EXCLUDED.summary, body = EXCLUDED.body, stages = EXCLUDED.stages,
+           title = EXCLUDED.title, summary = EXCLUDED.summary, body = EXCLUDED.body, stages = EXCLUDED.stages, labels = EXCLUDED.labels,
            symptoms = EXCLUDED.symptoms, sources = EXCLUDED.sources, content_hash = EXCLUDED.content_hash, updated_at = now()
          WHERE library_entries.kind = 'guide' AND library_entries.content_hash IS DISTINCT FROM EXCLUDED.content_hash
          RETURNING (xmax = 0) AS inserted`,
         {
-          bind: [guide.slug, guide.title, guide.summary, guide.body, guide.stages, guide.symptoms, guide.sources, guide.contentHash],
+          bind: [
+            guide.slug, guide.title, guide.summary, guide.body, guide.stages, guide.symptoms, guide.sources, guide.contentHash,
+            labelsOf({ stages: guide.stages, symptoms: guide.symptoms, cause: null, remedy: null }),
+          ],
           type: QueryTypes.SELECT,
           transaction,
         },

@@ -1,7 +1,13 @@
-// fuse.js ranks what PostgreSQL narrowed. Token search (one fuzzy match per query word, TF-IDF
-// weighted, any word may match) over the short fields a reader judges a result by: title,
-// summary and the vocabulary labels. The benchmark runs the same ranking over every entry to
-// check that narrowing first keeps the same top results.
+// fuse.js ranks what PostgreSQL narrowed. Each query word is searched on its own (fuzzy, anywhere
+// in the field) over the short fields a reader judges a result by: title, summary and the
+// vocabulary labels. The word scores are combined by rarity:
+//
+//   score = 1 − Σ idf(w) · (1 − fuse(w)) / Σ idf(w),   idf(w) = ln(1 + resolved cases / cases with w)
+//
+// (0 is a perfect match of every word, 1 no match at all). A word's rarity comes from
+// search_terms, the same counts "batches like this" weighs words by, not from the entries at hand:
+// so an entry scores the same whether fuse.js sees 200 candidates or all 100,000 entries, and the
+// benchmark's full ranking is comparable with ours entry for entry.
 import Fuse, { type IFuseOptions } from 'fuse.js';
 import { CAUSES, REMEDIES, STAGES, SYMPTOMS, labelOf } from '../../../shared/vocabulary';
 
@@ -22,6 +28,11 @@ interface RankDoc<T> {
   labels: string;
 }
 
+export interface WeightedWord {
+  word: string;
+  idf: number;
+}
+
 export const FUSE_OPTIONS: IFuseOptions<RankDoc<unknown>> = {
   keys: [
     { name: 'title', weight: 3 },
@@ -31,8 +42,7 @@ export const FUSE_OPTIONS: IFuseOptions<RankDoc<unknown>> = {
   includeScore: true,
   ignoreLocation: true,
   threshold: 0.4,
-  useTokenSearch: true,
-  tokenMatch: 'any',
+  shouldSort: false,
 };
 
 export function labelsOf(entry: Pick<RankableEntry, 'stages' | 'symptoms' | 'cause' | 'remedy'>): string {
@@ -46,22 +56,45 @@ export function labelsOf(entry: Pick<RankableEntry, 'stages' | 'symptoms' | 'cau
     .join(', ');
 }
 
+/** How much a word counts: rarer words more (the +1 keeps a word in every case above zero). */
+export function idfOf(resolvedCases: number, casesWithWord: number): number {
+  const uses = Math.max(1, casesWithWord);
+  return Math.log(1 + Math.max(resolvedCases, uses) / uses);
+}
+
 export interface Scored<T> {
   entry: T;
-  /** fuse.js score: 0 is a perfect match, 1 no match at all */
+  /** 0 is a perfect match, 1 no match at all */
   score: number;
 }
 
-/** Every entry with its fuse.js score for the words; entries fuse does not match score 1. */
-export function fuseScores<T extends RankableEntry>(entries: readonly T[], words: readonly string[]): Scored<T>[] {
-  const docs: RankDoc<T>[] = entries.map((entry) => ({ entry, title: entry.title, summary: entry.summary, labels: labelsOf(entry) }));
-  const fuse = new Fuse(docs, FUSE_OPTIONS as IFuseOptions<RankDoc<T>>);
-  const scores = new Map<number, number>();
-  for (const result of fuse.search(words.join(' '))) scores.set(result.refIndex, result.score ?? 1);
-  return docs.map((doc, index) => ({ entry: doc.entry, score: scores.get(index) ?? 1 }));
+export interface FuseRanker<T> {
+  fuse: Fuse<RankDoc<T>>;
+  docs: RankDoc<T>[];
 }
 
-/** Best first by fuse.js score; `tieBreak` orders equal scores (e.g. the text rank). */
+/** The fuse.js index over some entries: built per search for the narrowed few, once for all of
+ * them in the benchmark. */
+export function fuseRanker<T extends RankableEntry>(entries: readonly T[]): FuseRanker<T> {
+  const docs: RankDoc<T>[] = entries.map((entry) => ({ entry, title: entry.title, summary: entry.summary, labels: labelsOf(entry) }));
+  return { fuse: new Fuse(docs, FUSE_OPTIONS as IFuseOptions<RankDoc<T>>), docs };
+}
+
+/** Every entry with its combined score for the words; entries no word matches score 1. */
+export function fuseScores<T extends RankableEntry>(entries: readonly T[] | FuseRanker<T>, words: readonly WeightedWord[]): Scored<T>[] {
+  const { fuse, docs } = Array.isArray(entries) ? fuseRanker(entries as readonly T[]) : (entries as FuseRanker<T>);
+  const total = words.reduce((sum, w) => sum + w.idf, 0);
+  const gained = new Map<number, number>();
+  for (const { word, idf } of words) {
+    for (const result of fuse.search(word)) gained.set(result.refIndex, (gained.get(result.refIndex) ?? 0) + idf * (1 - (result.score ?? 1)));
+  }
+  return docs.map((doc, index) => {
+    const gain = gained.get(index);
+    return { entry: doc.entry, score: gain === undefined || total === 0 ? 1 : 1 - gain / total };
+  });
+}
+
+/** Best first by score; `tieBreak` orders equal scores (e.g. the text rank). */
 export function byScore<T>(scored: Scored<T>[], tieBreak: (a: T, b: T) => number = () => 0): Scored<T>[] {
   return [...scored].sort((a, b) => a.score - b.score || tieBreak(a.entry, b.entry));
 }

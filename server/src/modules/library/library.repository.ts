@@ -50,13 +50,13 @@ function filterSql(filters: EntryFilters, bind: unknown[]): string {
 
 export const libraryRepository = {
   /** Each query word's closest known words (trigram similarity over search_terms), best first. */
-  async knownWordsLike(words: readonly string[], perWord: number, minSimilarity: number): Promise<Array<{ word: string; term: string; similarity: number }>> {
+  async knownWordsLike(words: readonly string[], perWord: number, minSimilarity: number): Promise<Array<{ word: string; term: string; similarity: number; uses: number }>> {
     if (!words.length) return [];
     return getSequelize().query(
-      `SELECT w.word, s.term, s.similarity
+      `SELECT w.word, s.term, s.similarity, s.uses
          FROM unnest($1::text[]) AS w(word)
          CROSS JOIN LATERAL (
-           SELECT t.term, similarity(t.term, w.word) AS similarity
+           SELECT t.term, t.uses, similarity(t.term, w.word) AS similarity
              FROM search_terms t
             WHERE t.term % w.word AND similarity(t.term, w.word) >= $3
             ORDER BY similarity(t.term, w.word) DESC, t.uses DESC, t.term
@@ -66,17 +66,35 @@ export const libraryRepository = {
     );
   },
 
-  /** PostgreSQL narrows: full-text matches of any of the words (GIN), best text rank first. */
-  async matchText(words: readonly string[], filters: EntryFilters, cap: number): Promise<RankedEntryRow[]> {
-    if (!words.length) return [];
+  /** PostgreSQL narrows: entries whose title, summary or labels contain any of the words (GIN on
+   * search_head), best text rank first. The rank's normalisation 1 divides by the log of the
+   * vector's length, so a short title that names the word beats a long one, as in fuse.js. */
+  async matchHead(words: readonly string[], filters: EntryFilters, cap: number, exclude: readonly number[]): Promise<RankedEntryRow[]> {
+    if (!words.length || cap <= 0) return [];
     // websearch_to_tsquery never fails on odd input; the words are a-z only anyway.
-    const bind: unknown[] = [words.join(' or '), cap];
+    const bind: unknown[] = [words.join(' or '), cap, [...exclude]];
     const where = filterSql(filters, bind);
     return getSequelize().query<RankedEntryRow>(
-      `SELECT ${LIST_COLUMNS}, ts_rank_cd(e.search, q.query)::float8 AS rank
+      `SELECT ${LIST_COLUMNS}, ts_rank(e.search_head, q.query, 1)::float8 AS rank
          FROM library_entries e, websearch_to_tsquery('english', $1) AS q(query)
-        WHERE e.search @@ q.query ${where}
+        WHERE e.search_head @@ q.query AND e.id <> ALL($3::int[]) ${where}
         ORDER BY rank DESC, e.id DESC
+        LIMIT $2`,
+      { bind, type: QueryTypes.SELECT },
+    );
+  },
+
+  /** More entries that name a word only in their body (a guide's text, a note's details). Not
+   * ranked in SQL: this runs only when the head found few, and fuse.js ranks what it adds. */
+  async matchBody(words: readonly string[], filters: EntryFilters, exclude: readonly number[], limit: number): Promise<RankedEntryRow[]> {
+    if (!words.length || limit <= 0) return [];
+    const bind: unknown[] = [words.join(' or '), limit, [...exclude]];
+    const where = filterSql(filters, bind);
+    return getSequelize().query<RankedEntryRow>(
+      `SELECT ${LIST_COLUMNS}, 0::float8 AS rank
+         FROM library_entries e, websearch_to_tsquery('english', $1) AS q(query)
+        WHERE e.search @@ q.query AND e.id <> ALL($3::int[]) ${where}
+        ORDER BY e.id DESC
         LIMIT $2`,
       { bind, type: QueryTypes.SELECT },
     );

@@ -10,10 +10,13 @@
 //    this" (cases/similar.service.ts), but not its single best correction at ≥ 0.4: "bubbels" is
 //    only 0.33 like "bubbles", and since the readings are OR-ed and fuse.js ranks afterwards,
 //    a looser, wider reading costs little here.
-// 3. PostgreSQL full-text search (GIN) takes at most CANDIDATES entries that contain any of
-//    those words, best text rank first, with the stage/symptom/kind filters applied. When that
-//    finds almost nothing, titles with a trigram-similar word are added.
-// 4. fuse.js scores the candidates against the words as typed (library-ranking.ts).
+// 3. PostgreSQL full-text search (GIN) takes at most LIBRARY_TUNING.candidates entries whose title, summary or
+//    labels contain any of those words (the fields fuse.js ranks on), best text rank first, with
+//    the stage/symptom/kind filters applied. Rare words go first, as many as together appear in
+//    about LIBRARY_TUNING.rowBudget cases; the common ones fill what room is left; then entries
+//    that name a word only in their body. When that finds almost nothing, titles with a trigram-similar word.
+// 4. fuse.js scores the candidates against the words as typed, each word weighted by the rarity
+//    of what it was read as (library-ranking.ts).
 // 5. Best first: the fuse.js score, nudged by how well the entry's remedy holds up (the lower
 //    bound of its Wilson interval; a guide counts as GUIDE_QUALITY). The nudge is at most
 //    QUALITY_WEIGHT, so it reorders close matches and never lifts a poor match over a good one.
@@ -22,10 +25,16 @@ import type { LibraryEntry, LibraryList, LibraryListItem, LibraryPhoto, LibraryQ
 import { describeRecord, remedyRecords } from '../../../shared/remedy-records';
 import { notFound } from '../../lib/errors';
 import { queryWords } from '../cases/search-index';
-import { byScore, fuseScores } from './library-ranking';
+import { resolvedCaseCount } from '../cases/similar.service';
+import { byScore, fuseScores, idfOf, type WeightedWord } from './library-ranking';
 import { libraryRepository as repo, type EntryFilters, type EntryRow, type RankedEntryRow } from './library.repository';
 
-export const CANDIDATES = 200;
+/** How many candidates PostgreSQL hands to fuse.js (scripts/bench-library.ts measures the choice). */
+export const LIBRARY_TUNING = {
+  candidates: 200,
+  /** the rare words that narrow first may together be in about this many cases */
+  rowBudget: 4000,
+};
 const KNOWN_WORDS_PER_WORD = 3;
 const MIN_SIMILARITY = 0.3;
 const MAX_WORDS = 8;
@@ -77,27 +86,50 @@ function toListItem(row: EntryRow, records: RecordsCache): LibraryListItem {
 }
 
 export interface Narrowed {
-  words: string[];
+  /** the query's words as typed, each weighted by the rarity of what it was read as */
+  words: WeightedWord[];
   readAs: Record<string, string[]>;
   candidates: RankedEntryRow[];
 }
 
 /** Steps 1–3: the words, how misspelt ones were read, and PostgreSQL's candidates. */
 export async function narrow(q: string, filters: EntryFilters): Promise<Narrowed> {
-  const words = searchWordsOf(q);
-  if (!words.length) return { words, readAs: {}, candidates: [] };
-  const known = await repo.knownWordsLike(words, KNOWN_WORDS_PER_WORD, MIN_SIMILARITY);
+  const typed = searchWordsOf(q);
+  if (!typed.length) return { words: [], readAs: {}, candidates: [] };
+  const [known, resolved] = await Promise.all([repo.knownWordsLike(typed, KNOWN_WORDS_PER_WORD, MIN_SIMILARITY), resolvedCaseCount()]);
   const readAs: Record<string, string[]> = {};
-  for (const word of words) {
-    const terms = known.filter((k) => k.word === word).map((k) => k.term);
-    if (terms.length && !terms.includes(word)) readAs[word] = terms;
+  const words: WeightedWord[] = typed.map((word) => {
+    // Best reading first (the query orders by similarity): the word itself when it is known.
+    const readings = known.filter((k) => k.word === word);
+    if (readings.length && !readings.some((k) => k.term === word)) readAs[word] = readings.map((k) => k.term);
+    return { word, idf: idfOf(resolved, readings[0]?.uses ?? 1) };
+  });
+  // Rare words narrow first (they weigh most in the ranking, and they pull in few rows); the
+  // common ones fill what room is left. A word no case has counts as rare.
+  const usesOf = new Map<string, number>(typed.map((w) => [w, 1]));
+  for (const k of known) usesOf.set(k.term, k.uses);
+  const byRarity = [...usesOf.entries()].sort((a, b) => a[1] - b[1]);
+  const first: string[] = [];
+  let rows = 0;
+  for (const [term, uses] of byRarity) {
+    if (first.length > 0 && rows + uses > LIBRARY_TUNING.rowBudget) break;
+    first.push(term);
+    rows += uses;
   }
-  const allWords = [...new Set([...words, ...known.map((k) => k.term)])];
-  let candidates = await repo.matchText(allWords, filters, CANDIDATES);
+  const rest = byRarity.map(([term]) => term).filter((t) => !first.includes(t));
+  const allWords = [...first, ...rest];
+  const cap = LIBRARY_TUNING.candidates;
+  let candidates = await repo.matchHead(first, filters, cap, []);
+  if (candidates.length < cap && rest.length) {
+    candidates = [...candidates, ...(await repo.matchHead(rest, filters, cap - candidates.length, candidates.map((c) => c.id)))];
+  }
+  if (candidates.length < cap) {
+    candidates = [...candidates, ...(await repo.matchBody(allWords, filters, candidates.map((c) => c.id), cap - candidates.length))];
+  }
   if (candidates.length < FEW_MATCHES) {
     const seen = new Set(candidates.map((c) => c.id));
-    const more = (await repo.matchTitleWords(words, filters, CANDIDATES)).filter((c) => !seen.has(c.id));
-    candidates = [...candidates, ...more].slice(0, CANDIDATES);
+    const more = (await repo.matchTitleWords(typed, filters, cap)).filter((c) => !seen.has(c.id));
+    candidates = [...candidates, ...more].slice(0, cap);
   }
   return { words, readAs, candidates };
 }

@@ -12,6 +12,8 @@ import { CaseHeader } from '../../../features/cases/components/case-header';
 import { CasePhotos } from '../../../features/cases/components/case-photos';
 import { SimilarCasesList } from '../../../features/cases/components/similar-cases-list';
 import { CaseThread } from '../../../features/threads/components/case-thread';
+import { CloseCasePanel } from '../../../features/closing/components/close-case-panel';
+import { RecoveryPrompt } from '../../../features/closing/components/recovery-prompt';
 
 export const clientLoader = (queryClient: QueryClient) => async ({ params }: LoaderFunctionArgs) => {
   // Someone who may not read the case gets a 404 from the server, and the page says so.
@@ -30,6 +32,7 @@ export default function CasePageRoute() {
   return (
     <div className={cx(PAGE_WIDTH, 'flex flex-col gap-10 py-8 sm:py-10')}>
       <CaseHeader detail={detail} viewerId={user?.id ?? null} />
+      <RecoveryPrompt caseId={id} />
 
       <section aria-labelledby="case-photos-heading" className="flex flex-col gap-4">
         <h2 id="case-photos-heading" className="text-xl font-extrabold">
@@ -46,6 +49,7 @@ export default function CasePageRoute() {
         emptyText=""
       />
 
+      <CloseCasePanel caseId={id} />
       <CaseThread caseId={id} />
     </div>
   );

@@ -1,0 +1,85 @@
+import { useId, useState } from 'react';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { ClosingState } from '@shared/closing-schemas';
+import { Alert } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
+import { api } from '../../../lib/api-client';
+import { useClosing } from '../api/get-closing';
+import { refreshAfterClosing } from '../api/refresh-after-closing';
+import { ClosingRecord } from './closing-record';
+import { CloseCaseForm } from './close-case-form';
+
+/**
+ * On the case page: for the mentor holding the case (or a steward) while it is open, closing it
+ * with a cause, a remedy and a summary (PRODUCT.md screen 6); once closed, what closing recorded,
+ * for everyone who reads the case. A steward may close a long-silent watching case as lost.
+ */
+export function CloseCasePanel({ caseId }: { caseId: number }) {
+  const closing = useClosing(caseId);
+  const headingId = useId();
+  // Still true once the form's own closing went through, which is when to say so.
+  const [open, setOpen] = useState(false);
+  const state = closing.data;
+  if (!state) return null;
+  const closed = state.closedAt !== null && state.status !== 'withdrawn';
+  if (!state.can.close && !closed) return null;
+
+  return (
+    <section aria-labelledby={headingId} className="flex flex-col gap-4 rounded-soft border-2 border-moss bg-moss-mist/40 p-4 sm:p-6">
+      <h2 id={headingId} className="text-2xl font-extrabold">
+        {closed ? 'Closing' : 'Close this case'}
+      </h2>
+      {open && closed && (
+        <Alert tone="success" title="Closed: the case is now watching">
+          The grower has an e-mail with your summary and a link to tell us how the batch does.
+        </Alert>
+      )}
+      {!closed && !open && (
+        <div className="flex flex-col gap-3">
+          <p>When there is a likely cause and a remedy to try, record them here. The grower then tells us how the batch does.</p>
+          <Button className="self-start" onClick={() => setOpen(true)}>
+            Close the case…
+          </Button>
+        </div>
+      )}
+      {!closed && open && (
+        <CloseCaseForm caseId={caseId} onCancel={() => setOpen(false)} />
+      )}
+      {closed && <ClosingRecord state={state} />}
+      {state.can.closeAsLost && <CloseAsLost state={state} />}
+    </section>
+  );
+}
+
+function CloseAsLost({ state }: { state: ClosingState }) {
+  const queryClient = useQueryClient();
+  const [confirm, setConfirm] = useState(false);
+  const mutation = useMutation({
+    mutationFn: () => api.post<ClosingState>(`/api/cases/${state.caseId}/close-as-lost`, {}),
+    onSuccess: (next) => refreshAfterClosing(queryClient, next),
+  });
+  return (
+    <div className="flex flex-col gap-2 border-t border-line pt-3">
+      <p>No recovery report came in 14 days after closing. As a steward you may close the case as lost; it then counts in no track record.</p>
+      {!confirm ? (
+        <Button variant="secondary" className="self-start" onClick={() => setConfirm(true)}>
+          Close as lost…
+        </Button>
+      ) : (
+        <div className="flex flex-wrap gap-3">
+          <Button variant="danger" onClick={() => mutation.mutate()} disabled={mutation.isPending}>
+            {mutation.isPending ? 'Closing…' : 'Yes, close it as lost'}
+          </Button>
+          <Button variant="secondary" onClick={() => setConfirm(false)}>
+            Keep watching
+          </Button>
+        </div>
+      )}
+      {mutation.error && (
+        <p role="alert" className="font-semibold text-ember">
+          {mutation.error.message}
+        </p>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,75 @@
+import { Link } from 'react-router';
+import { OUTCOME_LABELS, type ClosingState } from '@shared/closing-schemas';
+import { CAUSES, REMEDIES, labelOf } from '@shared/vocabulary';
+
+const dayText = (iso: string) => new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long' }).format(new Date(iso));
+
+/** What closing recorded, the check-ins, and how the case ended. */
+export function ClosingRecord({ state }: { state: ClosingState }) {
+  return (
+    <div className="flex flex-col gap-3">
+      <p className="text-loam-soft">
+        Closed {state.closedAt && dayText(state.closedAt)}
+        {state.closedBy && <> by {state.closedBy.displayName}</>}.
+      </p>
+      <dl className="grid gap-x-4 gap-y-1 sm:grid-cols-[auto_1fr]">
+        {state.cause && (
+          <>
+            <dt className="font-bold">Likely cause</dt>
+            <dd>
+              {labelOf(CAUSES, state.cause)}
+              {state.causeNotes && <span className="block text-loam-soft">{state.causeNotes}</span>}
+            </dd>
+          </>
+        )}
+        {state.remedy && (
+          <>
+            <dt className="font-bold">Remedy</dt>
+            <dd>
+              {labelOf(REMEDIES, state.remedy)}
+              {state.remedyNotes && <span className="block text-loam-soft">{state.remedyNotes}</span>}
+            </dd>
+          </>
+        )}
+        {state.summary && (
+          <>
+            <dt className="font-bold">Summary</dt>
+            <dd className="whitespace-pre-line">{state.summary}</dd>
+          </>
+        )}
+        {state.outcome && (
+          <>
+            <dt className="font-bold">How it turned out</dt>
+            <dd>
+              {OUTCOME_LABELS[state.outcome]}
+              {state.stars && <>, advice rated {state.stars} of 5</>}
+              {state.recoveryComment && <span className="block text-loam-soft">“{state.recoveryComment}”</span>}
+            </dd>
+          </>
+        )}
+        {state.status === 'lost' && !state.outcome && (
+          <>
+            <dt className="font-bold">How it turned out</dt>
+            <dd>Closed as lost: no recovery report came in.</dd>
+          </>
+        )}
+      </dl>
+      {state.status === 'watching' && state.checkIns.length > 0 && (
+        <p>
+          <span className="font-bold">Check-ins: </span>
+          {state.checkIns.map((c, i) => (
+            <span key={c.day}>
+              {i > 0 && ', '}
+              day {c.day} {c.sentAt ? '(sent)' : `(${dayText(c.dueAt)})`}
+            </span>
+          ))}
+        </p>
+      )}
+      {state.published && state.noteSlug && (
+        <p>
+          Shared in the Field Library: <Link to={`/library/${state.noteSlug}`}>read the field note</Link>
+        </p>
+      )}
+    </div>
+  );
+}
