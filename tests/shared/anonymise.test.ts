@@ -60,5 +60,6 @@ describe('anonymise', () => {
       }),
       { numRuns: 300 },
     );
-  });
+    // 300 generated texts take a few seconds on a loaded 2-core machine.
+  }, 60_000);
 });
