@@ -28,7 +28,7 @@ export default defineConfig({
       {
         extends: true,
         root: rootDir,
-        test: { name: 'unit', root: rootDir, sequence: { groupOrder: 0 }, include: ['tests/shared/**/*.test.ts', 'tests/unit/**/*.test.ts'], environment: 'node' },
+        test: { name: 'unit', root: rootDir, sequence: { groupOrder: 0 }, testTimeout: 30_000, include: ['tests/shared/**/*.test.ts', 'tests/unit/**/*.test.ts'], environment: 'node' },
       },
       {
         extends: true,

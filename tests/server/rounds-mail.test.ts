@@ -84,7 +84,10 @@ describe('the mail to a grower when a mentor replies', () => {
     await post(mentor.browser, kase.id, 'Skim the slime off and tell me what is under it.').expect(201);
     const transport = createTransport(`smtp://127.0.0.1:${catcher.port}`);
     try {
-      expect(await sendDueMail(transport, t.config.MAIL_FROM)).toBeGreaterThanOrEqual(1);
+      // Other test files leave mail in the shared outbox: send until nothing is due.
+      let sent = 0;
+      for (let n = await sendDueMail(transport, t.config.MAIL_FROM); n > 0; n = await sendDueMail(transport, t.config.MAIL_FROM)) sent += n;
+      expect(sent).toBeGreaterThanOrEqual(1);
     } finally {
       transport.close();
     }
