@@ -2,7 +2,9 @@ import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import { getSequelize } from '../../server/src/db/sequelize';
+import { SYMPTOM_IDS } from '../../server/shared/vocabulary';
 import { indexResolvedCase, queryWords } from '../../server/src/modules/cases/search-index';
+import { SYMPTOM_BIT_ORDER, nearSymptomSets, symptomMask, symptomsOfMask } from '../../server/src/modules/cases/similar.service';
 import { makeTestApp, type TestApp } from '../setup/test-app';
 import { JSON_HEADERS, signedIn } from '../factories/sign-in';
 import { createCase, createResolvedCase } from '../factories/cases';
@@ -132,5 +134,40 @@ describe('batches like this', () => {
     // An open case is not indexed at all.
     const open = await createCase(user.id, { description: `${word}zz` });
     expect(await getSequelize().transaction((transaction) => indexResolvedCase(open, transaction))).toBe(false);
+  });
+
+  test('when a symptom is in the vocabulary, then it has a bit, and the database and the server agree on the mask', async () => {
+    // A symptom added to the vocabulary without a migration appending it to the mask fails here.
+    expect([...SYMPTOM_IDS].sort()).toEqual([...SYMPTOM_BIT_ORDER].sort());
+    const rows = await getSequelize().query<{ s: string; mask: string }>(
+      `SELECT s, case_symptom_mask(ARRAY[s]) AS mask FROM unnest(ARRAY[:ids]::text[]) AS s`,
+      { replacements: { ids: [...SYMPTOM_IDS] }, type: QueryTypes.SELECT },
+    );
+    for (const row of rows) expect(Number(row.mask)).toBe(symptomMask([row.s]));
+    const some = ['bubbling', 'smell-sour', 'colour-white'] as const;
+    const [both] = await getSequelize().query<{ mask: string }>(`SELECT case_symptom_mask(ARRAY[:some]::text[]) AS mask`, {
+      replacements: { some: [...some] },
+      type: QueryTypes.SELECT,
+    });
+    expect(Number(both.mask)).toBe(symptomMask([...some]));
+    expect(symptomsOfMask(symptomMask([...some])).sort()).toEqual([...some].sort());
+  });
+
+  test('when the nearest symptom sets are listed, then the set itself comes first and none falls below Jaccard 0.4', () => {
+    const mask = symptomMask(['bubbling', 'smell-sour', 'colour-white']);
+    const near = nearSymptomSets(mask);
+    expect(near[0]).toBe(mask);
+    expect(new Set(near).size).toBe(near.length);
+    expect(near.length).toBeLessThanOrEqual(400);
+    const jaccard = (a: number, b: number) => {
+      const count = (x: number) => symptomsOfMask(x).length;
+      return count(a & b) / count(a | b);
+    };
+    const scores = near.map((set) => jaccard(set, mask));
+    expect(Math.min(...scores)).toBeGreaterThanOrEqual(0.4);
+    expect(scores).toEqual([...scores].sort((a, b) => b - a));
+    // one symptom dropped and one added, e.g. {bubbling, sour, slimy}: 2 / 4
+    expect(near).toContain(symptomMask(['bubbling', 'smell-sour', 'slimy']));
+    expect(nearSymptomSets(0)).toEqual([]);
   });
 });

@@ -18,6 +18,7 @@ import { getSequelize } from '../../db/sequelize';
 import type { BatchCheckResult, BatchRisk, SugarTypeId } from '../../../shared/batch-check';
 import type { CaseDetail, CaseListItem, CaseListQuery, PhotoPurpose } from '../../../shared/case-schemas';
 import type { WeightColumns } from '../batches/batches.repository';
+import { symptomMask } from './similar.service';
 import { OPEN_STATUSES, type CaseStatus } from '../../../shared/case-status';
 import { URGENCY_WEIGHTS, type UrgencyLevel } from '../../../shared/urgency';
 import type { MassUnit } from '../../../shared/units';
@@ -309,8 +310,9 @@ export const casesRepository = {
       replacements.stages = query.stage;
     }
     if (query.symptom?.length) {
-      where.push('c.symptoms && ARRAY[:symptoms]::text[]');
-      replacements.symptoms = query.symptom;
+      // "has any of these", on the symptom mask (migration 0101), which the rounds index holds
+      where.push('(c.symptom_bits & :symptomMask) <> 0');
+      replacements.symptomMask = symptomMask(query.symptom);
     }
     if (query.minAgeHours !== undefined) {
       where.push(`c.opened_at <= now() - make_interval(secs => :minAge)`);

@@ -1,31 +1,40 @@
 // "Batches like this": resolved cases (recovered or lost) close to a case or to an unsaved draft.
 //
-// How a resolved case is scored against the draft (0–1, higher is closer):
+// The score of a resolved case against the draft (0–1, higher is closer):
 //
 //   score = 0.45 × text + 0.25 × symptoms + 0.20 × stage + 0.10 × ratio
 //
-//   text      the draft's words (title and description), each corrected against the words of
-//             resolved cases (search_terms, trigram similarity), weighted by rarity
-//             (idf = ln(1 + resolved cases / cases with the word)); a word counts by how well
-//             fuse.js finds it in the case's search text (1 for an exact hit, falling to 0 at
-//             fuse's threshold): text = Σ idf × hit / Σ idf.
+//   text      Σ idf(word) × credit(word, case) / Σ idf(word) over the draft's words (title and
+//             description, at most MAX_WORDS, the rarest kept), idf = ln(1 + resolved cases /
+//             cases using the word). A word the resolved cases use is credited 1 when the case
+//             has it (full-text match, so "bubbles" meets "bubbling"). A word no case uses is
+//             taken as misspelt: its nearest known words by trigram similarity are the
+//             shortlist, fuse.js scores each against what was typed, and the case is credited
+//             with the best-scoring shortlisted word it has (1 − fuse score / threshold).
 //   symptoms  Jaccard overlap of the symptom sets (shared / all named by either).
 //   stage     1 for the same stage, 0.5 for a related one (IMO1–IMO4; FPJ and FFJ; WCA and WCS).
 //   ratio     sugar : culture closeness, 1 − |Δ| / 0.6, floored at 0; 0 when either lacks it.
 //
-// Cases under 0.15 are not shown (nothing but a similar ratio, say). Ties go to the newer case.
+// Cases under 0.15 are not shown (a similar ratio alone, say). Ties go to the newer case.
 //
-// Why two steps: fuse.js over every resolved case takes seconds at 100,000 (QUALITY.md), so
-// PostgreSQL first narrows to at most 200 candidates, ranked by the same formula with exact
-// full-text hits standing in for fuse's fuzzy ones: rows that contain one of the draft's rarer
-// words (GIN on `search`; words so common that together they would pull in more than
-// TEXT_ROW_BUDGET rows are left to the ranking step, they weigh little anyway), or that share
-// the stage and a symptom (GIN on symptoms + the resolved-stage index). fuse.js then ranks that
-// short list. scripts/bench-similar.ts measures the time and how often the top 5 equal the
-// same formula computed with fuse.js over all cases.
+// How it stays fast (QUALITY.md: p95 ≤ 25 ms at 100,000 resolved cases): PostgreSQL narrows to
+// at most 200 candidates with the same formula, from two ends —
+//   by structure: the resolved cases of the draft's stage whose symptom set is one of the
+//     nearest few hundred to the draft's (Jaccard ≥ 0.4, at most two symptoms dropped or added;
+//     symptoms are a bit mask, looked up in the covering index of migration 0101), best 100 by
+//     the structural part;
+//   by text: the cases holding the draft's rarer words (the GIN index on `search`, one lookup
+//     per word, never reading the big tsvector), best 100 by text + structure; words so common
+//     that together they would pull in more than TEXT_ROW_BUDGET cases are left out of this
+//     end (they weigh little anyway) but still count in the score.
+// The score of the ≤ 200 candidates is then computed exactly. scripts/bench-similar.ts measures
+// the time and compares the top 5 with the same formula computed over every case, misspelt
+// words matched by fuse.js over the whole vocabulary.
 import Fuse from 'fuse.js';
 import { QueryTypes } from 'sequelize';
 import { getSequelize } from '../../db/sequelize';
+import { SYMPTOM_BIT_ORDER_0101 } from '../../db/migrations/0101-similar-structure';
+import { preparedQuery } from './prepared-query';
 import type { SimilarItem } from '../../../shared/case-schemas';
 import { SYMPTOMS, labelOf, type StageId, type SymptomId } from '../../../shared/vocabulary';
 import { queryWords } from './search-index';
@@ -33,20 +42,71 @@ import { queryWords } from './search-index';
 export const SIMILAR_WEIGHTS = { text: 0.45, symptoms: 0.25, stage: 0.2, ratio: 0.1 } as const;
 
 export const SIMILAR_TUNING = {
-  /** candidates PostgreSQL hands to fuse.js */
-  candidateLimit: 200,
-  /** the narrowing words may together match at most about this many rows */
-  textRowBudget: 4000,
-  /** the draft's rarest words that count; the rest add little and cost time */
-  maxTerms: 10,
-  /** fuse.js threshold (0 exact … 1 anything) */
+  /** candidates from each end (structure, text) */
+  perEnd: 100,
+  /** the narrowing words may together match at most about this many cases */
+  textRowBudget: 800,
+  /** the draft's words that count, rarest first */
+  maxWords: 10,
+  /** known words offered for a misspelt one (trigram similarity ≥ pg_trgm's 0.3) */
+  shortlist: 5,
+  /** fuse.js threshold (0 exact … 1 anything); a shortlisted word further than this gets no credit */
   fuseThreshold: 0.4,
-  /** a misspelt word is replaced by a known word at least this trigram-similar */
-  minCorrection: 0.4,
+  /** …nor one whose length differs by more than this from what was typed */
+  maxLengthDifference: 2,
   ratioSpan: 0.6,
   relatedStage: 0.5,
   minScore: 0.15,
 } as const;
+
+/** Bit i of `cases.symptom_bits` is this symptom (frozen by migration 0101). */
+export const SYMPTOM_BIT_ORDER: readonly string[] = SYMPTOM_BIT_ORDER_0101;
+
+/**
+ * The symptom sets nearest to `mask` by Jaccard overlap, best first: the set itself, then with
+ * up to two symptoms dropped (never all) and up to two added, down to MIN_PATTERN_JACCARD, at
+ * most MAX_PATTERNS of them. (Plain numbers: the 26 symptoms fit in 31 bits.)
+ */
+export function nearSymptomSets(mask: number): number[] {
+  const inside: number[] = [];
+  const outside: number[] = [];
+  for (let i = 0; i < SYMPTOM_BIT_ORDER.length; i++) (mask & (1 << i) ? inside : outside).push(1 << i);
+  const k = inside.length;
+  if (k === 0) return [];
+  /** OR-ed subsets of `from` with 0…most members, with their sizes */
+  const subsets = (from: number[], most: number): [number, number][] => {
+    const out: [number, number][] = [[0, 0]];
+    for (let i = 0; i < from.length; i++) {
+      if (most >= 1) out.push([from[i], 1]);
+      if (most >= 2) for (let j = i + 1; j < from.length; j++) out.push([from[i] | from[j], 2]);
+    }
+    return out;
+  };
+  const found: { set: number; jaccard: number }[] = [];
+  for (const [dropped, d] of subsets(inside, Math.min(2, k - 1))) {
+    for (const [added, a] of subsets(outside, 2)) {
+      const jaccard = (k - d) / (k + a);
+      if (jaccard >= MIN_PATTERN_JACCARD) found.push({ set: (mask & ~dropped) | added, jaccard });
+    }
+  }
+  return found.sort((x, y) => y.jaccard - x.jaccard || x.set - y.set).slice(0, MAX_PATTERNS).map((f) => f.set);
+}
+const MIN_PATTERN_JACCARD = 0.4;
+const MAX_PATTERNS = 400;
+if (SYMPTOM_BIT_ORDER_0101.length > 31) throw new Error('symptom masks no longer fit in 31 bits: move nearSymptomSets to BigInt');
+
+export function symptomsOfMask(mask: number): SymptomId[] {
+  return SYMPTOM_BIT_ORDER.filter((_, i) => mask & (1 << i)) as SymptomId[];
+}
+
+export function symptomMask(symptoms: readonly string[]): number {
+  let mask = 0;
+  for (const s of symptoms) {
+    const at = SYMPTOM_BIT_ORDER.indexOf(s);
+    if (at >= 0) mask |= 1 << at;
+  }
+  return mask;
+}
 
 const FAMILIES: readonly (readonly StageId[])[] = [['IMO1', 'IMO2', 'IMO3', 'IMO4'], ['FPJ', 'FFJ'], ['WCA', 'WCS']];
 
@@ -65,18 +125,31 @@ export interface SimilarRequest {
   publishedOnly: boolean;
 }
 
-export interface Term {
-  /** what the draft said */
-  word: string;
-  /** the known word it stands for (the same word when spelt as some case spells it) */
+/** A known word that stands for a draft word, with the credit a case holding it earns. */
+export interface Alternative {
   term: string;
   uses: number;
-  idf: number;
+  credit: number;
 }
 
-export interface Candidate extends Omit<SimilarItem, 'score' | 'reasons'> {
+/** One word of the draft. */
+export interface Unit {
+  /** as typed */
+  word: string;
+  /** the known word it is read as (itself when known) */
+  term: string;
+  idf: number;
+  alternatives: Alternative[];
+}
+
+/** What the score needs of a resolved case (what is shown of it is read for the few shown). */
+export interface Candidate {
+  id: number;
+  stage: StageId;
+  symptoms: SymptomId[];
   ratio: number | null;
-  text: string;
+  /** indices into `flattenAlternatives(units)` of the alternatives this case holds */
+  matched: number[];
 }
 
 export interface Scored {
@@ -86,7 +159,7 @@ export interface Scored {
 }
 
 // ---------------------------------------------------------------------------------------------
-// Step 0: the draft's words, corrected, with their weight
+// The draft's words
 
 let resolvedCache: { at: number; count: number } | null = null;
 
@@ -104,129 +177,175 @@ export function forgetResolvedCount(): void {
   resolvedCache = null;
 }
 
-/** Each word, matched to the most similar known word (itself when known), rarest first. */
-export async function correctedTerms(text: string, resolved: number): Promise<Term[]> {
-  const words = queryWords(text).slice(0, 40);
-  if (words.length === 0) return [];
-  const rows = await getSequelize().query<{ word: string; term: string; uses: number }>(
-    `SELECT q.word, t.term, t.uses
-       FROM unnest($words::text[]) WITH ORDINALITY AS q(word, ord)
-       CROSS JOIN LATERAL (
-         SELECT term, uses, similarity(term, q.word) AS sim FROM search_terms
-          WHERE term % q.word AND similarity(term, q.word) >= $min
-          ORDER BY sim DESC, uses DESC, term LIMIT 1
-       ) t
-      ORDER BY q.ord`,
-    { bind: { words, min: SIMILAR_TUNING.minCorrection }, type: QueryTypes.SELECT },
-  );
-  const byTerm = new Map<string, Term>();
-  for (const row of rows) {
-    if (byTerm.has(row.term)) continue;
-    const uses = Math.max(1, Number(row.uses));
-    byTerm.set(row.term, { word: row.word, term: row.term, uses, idf: Math.log(1 + Math.max(resolved, uses) / uses) });
-  }
-  return [...byTerm.values()].sort((a, b) => b.idf - a.idf || a.term.localeCompare(b.term)).slice(0, SIMILAR_TUNING.maxTerms);
-}
+export const idfOf = (uses: number, resolved: number) => Math.log(1 + Math.max(resolved, uses, 1) / Math.max(uses, 1));
 
-// ---------------------------------------------------------------------------------------------
-// Step 1: PostgreSQL narrows
-
-/** The words that narrow: rarest first, while together they stay within the row budget. */
-export function narrowingTerms(terms: readonly Term[]): Term[] {
-  const byRarity = [...terms].sort((a, b) => a.uses - b.uses);
-  const chosen: Term[] = [];
-  let rows = 0;
-  for (const term of byRarity) {
-    if (chosen.length > 0 && rows + term.uses > SIMILAR_TUNING.textRowBudget) break;
-    chosen.push(term);
-    rows += term.uses;
-  }
-  return chosen;
-}
-
-export async function findCandidates(request: SimilarRequest, terms: readonly Term[]): Promise<Candidate[]> {
-  const narrow = narrowingTerms(terms);
-  const stage = request.stage ?? null;
-  const symptoms = [...new Set(request.symptoms)];
-  const branches: string[] = [];
-  if (narrow.length) branches.push(`c.search @@ to_tsquery('english', $narrow)`);
-  if (stage && symptoms.length) branches.push(`(c.stage = $stage AND c.symptoms && $symptoms::text[])`);
-  else if (stage) branches.push(`c.stage = $stage`);
-  else if (symptoms.length >= 2) branches.push(`c.symptoms @> $symptoms::text[]`);
-  if (branches.length === 0) return [];
-  const idfTotal = terms.reduce((sum, t) => sum + t.idf, 0) || 1;
-  const W = SIMILAR_WEIGHTS;
-  const T = SIMILAR_TUNING;
-  const rows = await getSequelize().query<Candidate & { approx: number }>(
-    `WITH terms AS (
-       SELECT q, t.idf FROM unnest($terms::text[], $idfs::float8[]) AS t(term, idf), to_tsquery('english', t.term) AS q
-        WHERE numnode(q) > 0
-     ), hits AS (
-       SELECT c.id,
-              ${W.text} * coalesce((SELECT sum(terms.idf) FROM terms WHERE c.search @@ terms.q), 0) / $idfTotal
-            + ${W.symptoms} * CASE WHEN cardinality($symptoms::text[]) = 0 THEN 0
-                                   ELSE o.shared / NULLIF(cardinality(c.symptoms) + cardinality($symptoms::text[]) - o.shared, 0) END
-            + ${W.stage} * CASE WHEN c.stage = $stage THEN 1 WHEN c.stage = ANY($family::text[]) THEN ${T.relatedStage} ELSE 0 END
-            + ${W.ratio} * CASE WHEN $ratio::float8 IS NULL OR c.sugar_ratio IS NULL THEN 0
-                                ELSE GREATEST(0, 1 - abs(c.sugar_ratio - $ratio::float8) / ${T.ratioSpan}) END AS approx
-         FROM cases c
-         CROSS JOIN LATERAL (SELECT count(*)::float8 AS shared FROM unnest(c.symptoms) s WHERE s = ANY($symptoms::text[])) o
-        WHERE c.status IN ('recovered', 'lost') AND c.id <> $exclude AND (NOT $publishedOnly::boolean OR c.published)
-          AND (${branches.join(' OR ')})
-        ORDER BY approx DESC, c.id DESC
-        LIMIT $limit
-     )
-     SELECT h.approx, c.id, c.title, c.stage, c.symptoms, c.cause, c.remedy, c.outcome, c.status, c.published,
-            c.sugar_ratio AS ratio, c.search_text AS text
-       FROM hits h JOIN cases c ON c.id = h.id
-      ORDER BY h.approx DESC, c.id DESC`,
-    {
-      // Named, so a parameter a branch does not use is simply not sent.
-      bind: {
-        terms: terms.map((t) => t.term),
-        idfs: terms.map((t) => t.idf),
-        narrow: narrow.map((t) => t.term).join(' | '),
-        stage,
-        symptoms,
-        family: stage ? relatedStages(stage) : [],
-        ratio: request.ratio,
-        exclude: request.excludeId ?? 0,
-        publishedOnly: request.publishedOnly,
-        idfTotal,
-        limit: T.candidateLimit,
-      },
-      type: QueryTypes.SELECT,
-    },
-  );
-  return rows.map(({ approx: _approx, ...c }) => c);
-}
-
-// ---------------------------------------------------------------------------------------------
-// Step 2: fuse.js ranks
-
-export const FUSE_OPTIONS = {
+export const FUSE_WORD_OPTIONS = {
   includeScore: true,
   ignoreLocation: true,
   ignoreFieldNorm: true,
   isCaseSensitive: false,
   shouldSort: false,
-  minMatchCharLength: 3,
   threshold: SIMILAR_TUNING.fuseThreshold,
 } as const;
 
-/** Per term, how well each text holds it: Map<term, Map<index in texts, hit 0–1>>. */
-export function termHits(terms: readonly Term[], fuse: Fuse<string>): Map<string, Map<number, number>> {
-  const hits = new Map<string, Map<number, number>>();
-  for (const term of terms) {
-    const found = new Map<number, number>();
-    for (const result of fuse.search(term.term)) {
-      const hit = Math.max(0, 1 - (result.score ?? 1) / SIMILAR_TUNING.fuseThreshold);
-      if (hit > 0) found.set(result.refIndex, hit);
-    }
-    hits.set(term.term, found);
+/**
+ * fuse.js's verdict on known words as stand-ins for a misspelt one: credit 1 − score / threshold
+ * for each it finds within the threshold and about the same length, best first (ties: the more
+ * used word). `fuse` may be given, built over exactly `known` (the benchmark passes one over
+ * the whole vocabulary).
+ */
+export function creditsFor(typed: string, known: readonly { term: string; uses: number }[], fuse?: Fuse<string>): Alternative[] {
+  const index = fuse ?? new Fuse(known.map((k) => k.term), FUSE_WORD_OPTIONS);
+  const found: Alternative[] = [];
+  for (const result of index.search(typed)) {
+    const k = known[result.refIndex];
+    if (Math.abs(k.term.length - typed.length) > SIMILAR_TUNING.maxLengthDifference) continue;
+    const credit = Math.max(0, 1 - (result.score ?? 1) / SIMILAR_TUNING.fuseThreshold);
+    if (credit > 0) found.push({ term: k.term, uses: k.uses, credit });
   }
-  return hits;
+  return found.sort((a, b) => b.credit - a.credit || b.uses - a.uses || a.term.localeCompare(b.term));
 }
+
+/** Builds a unit from what was typed and its alternatives (none: the word is dropped). */
+export function unitOf(word: string, alternatives: Alternative[], resolved: number): Unit | null {
+  if (alternatives.length === 0) return null;
+  const best = alternatives[0];
+  return { word, term: best.term, idf: idfOf(best.uses, resolved), alternatives };
+}
+
+/** The draft's words, at most maxWords of them, rarest first, duplicates of one reading merged. */
+export function keepUnits(units: (Unit | null)[]): Unit[] {
+  const byTerm = new Map<string, Unit>();
+  for (const unit of units) if (unit && !byTerm.has(unit.term)) byTerm.set(unit.term, unit);
+  return [...byTerm.values()].sort((a, b) => b.idf - a.idf || a.term.localeCompare(b.term)).slice(0, SIMILAR_TUNING.maxWords);
+}
+
+export async function readUnits(text: string, resolved: number): Promise<Unit[]> {
+  const words = queryWords(text).slice(0, 40);
+  if (words.length === 0) return [];
+  // Known words are looked up exactly; only unknown ones go to the trigram index.
+  const rows = await preparedQuery<{ word: string; term: string; uses: number; exact: boolean }>(
+    `SELECT q.word, s.term, s.uses, s.exact
+       FROM unnest($words::text[]) WITH ORDINALITY AS q(word, ord)
+       CROSS JOIN LATERAL (
+         (SELECT term, uses, true AS exact FROM search_terms WHERE term = q.word)
+         UNION ALL
+         (SELECT term, uses, false FROM search_terms
+           WHERE NOT EXISTS (SELECT 1 FROM search_terms e WHERE e.term = q.word) AND term % q.word
+           ORDER BY similarity(term, q.word) DESC, uses DESC, term LIMIT $shortlist)
+       ) s
+      ORDER BY q.ord`,
+    { words, shortlist: SIMILAR_TUNING.shortlist },
+  );
+  const byWord = new Map<string, { term: string; uses: number; exact: boolean }[]>();
+  for (const row of rows) byWord.set(row.word, [...(byWord.get(row.word) ?? []), { ...row, uses: Number(row.uses) }]);
+  const units = words.map((word) => {
+    const found = byWord.get(word) ?? [];
+    const exact = found.find((f) => f.exact);
+    if (exact) return unitOf(word, [{ term: word, uses: exact.uses, credit: 1 }], resolved);
+    return unitOf(word, creditsFor(word, found), resolved);
+  });
+  return keepUnits(units);
+}
+
+export function flattenAlternatives(units: readonly Unit[]): { unit: number; term: string; uses: number; credit: number }[] {
+  return units.flatMap((u, unit) => u.alternatives.map((a) => ({ unit, ...a })));
+}
+
+/** The alternatives that narrow: rarest first, while together they stay within the row budget. */
+export function narrowingAlternatives(units: readonly Unit[]): Set<number> {
+  const all = flattenAlternatives(units).map((a, index) => ({ ...a, index }));
+  const chosen = new Set<number>();
+  let rows = 0;
+  for (const alt of all.sort((a, b) => a.uses - b.uses || a.index - b.index)) {
+    if (chosen.size > 0 && rows + alt.uses > SIMILAR_TUNING.textRowBudget) break;
+    chosen.add(alt.index);
+    rows += alt.uses;
+  }
+  return chosen;
+}
+
+// ---------------------------------------------------------------------------------------------
+// PostgreSQL narrows
+
+/** The structural part of the score in SQL, for a row `c` (the same sum as `structureOf` below). */
+function structureSql(): string {
+  const W = SIMILAR_WEIGHTS;
+  const T = SIMILAR_TUNING;
+  return `(${W.symptoms} * CASE WHEN $mask::bigint = 0 THEN 0
+              ELSE bit_count((c.symptom_bits & $mask::bigint)::bit(64))::float8 / NULLIF(bit_count((c.symptom_bits | $mask::bigint)::bit(64)), 0) END
+         + ${W.stage} * CASE WHEN c.stage = $stage::text THEN 1 WHEN c.stage = ANY($family::text[]) THEN ${T.relatedStage} ELSE 0 END
+         + ${W.ratio} * CASE WHEN $ratio::float8 IS NULL OR c.sugar_ratio IS NULL THEN 0
+              ELSE GREATEST(0, 1 - abs(c.sugar_ratio - $ratio::float8) / ${T.ratioSpan}) END)`;
+}
+
+const VISIBLE = `c.status IN ('recovered', 'lost') AND c.id <> $exclude::int AND (NOT $publishedOnly::boolean OR c.published)`;
+
+export async function findCandidates(request: SimilarRequest, units: readonly Unit[]): Promise<Candidate[]> {
+  const stage = request.stage ?? null;
+  const mask = symptomMask(request.symptoms);
+  const alternatives = flattenAlternatives(units);
+  const narrowing = narrowingAlternatives(units);
+  const idfTotal = units.reduce((sum, u) => sum + u.idf, 0) || 1;
+  const ends: string[] = [];
+  if (narrowing.size > 0) {
+    ends.push(`(SELECT id FROM (
+        SELECT h.id, ${SIMILAR_WEIGHTS.text} * sum(h.credit * u.idf) / $idfTotal::float8 + max(h.structure) AS approx
+          FROM (SELECT c.id, a.unit, max(a.credit) AS credit, ${structureSql()} AS structure
+                  FROM alts a JOIN cases c ON c.search @@ a.q
+                 WHERE a.narrow AND ${VISIBLE}
+                 GROUP BY c.id, a.unit, c.symptom_bits, c.stage, c.sugar_ratio) h
+          JOIN unnest($unitIdf::float8[]) WITH ORDINALITY AS u(idf, unit) ON u.unit - 1 = h.unit
+         GROUP BY h.id
+         ORDER BY approx DESC, h.id DESC LIMIT $perEnd::int) t)`);
+  }
+  if (stage) {
+    ends.push(`(SELECT c.id FROM cases c
+        WHERE ${VISIBLE} AND c.stage = $stage::text ${mask ? 'AND c.symptom_bits = ANY($near::bigint[])' : ''}
+        ORDER BY ${structureSql()} DESC, c.id DESC LIMIT $perEnd::int)`);
+  } else if (request.symptoms.length >= 2) {
+    ends.push(`(SELECT c.id FROM cases c
+        WHERE ${VISIBLE} AND c.symptoms @> $symptoms::text[]
+        ORDER BY ${structureSql()} DESC, c.id DESC LIMIT $perEnd::int)`);
+  }
+  if (ends.length === 0) return [];
+  const rows = await preparedQuery<{ id: number; stage: StageId; bits: number; ratio: number | null; matched: number[] | null }>(
+    `WITH alts AS MATERIALIZED (
+       SELECT a.k, a.unit, a.credit, a.narrow, q
+         FROM unnest($altTerms::text[], $altUnits::int[], $altCredits::float8[], $altNarrow::boolean[]) WITH ORDINALITY AS a(term, unit, credit, narrow, k),
+              to_tsquery('english', a.term) AS q
+        WHERE numnode(q) > 0
+     ), picked AS (${ends.join(' UNION ')})
+     SELECT c.id, c.stage, c.symptom_bits::int AS bits, c.sugar_ratio AS ratio,
+            ARRAY(SELECT a.k - 1 FROM alts a WHERE d.v @@ a.q ORDER BY a.k) AS matched
+       FROM picked p
+       JOIN cases c ON c.id = p.id
+       -- one copy of the tsvector per row, instead of fetching it again for every word
+       CROSS JOIN LATERAL (SELECT c.search || ''::tsvector AS v OFFSET 0) d`,
+    // Named, so what an end does not use is simply not sent.
+    {
+        altTerms: alternatives.map((a) => a.term),
+        altUnits: alternatives.map((a) => a.unit),
+        altCredits: alternatives.map((a) => a.credit),
+        altNarrow: alternatives.map((_, i) => narrowing.has(i)),
+        unitIdf: units.map((u) => u.idf),
+        idfTotal,
+        stage,
+        family: stage ? relatedStages(stage) : [],
+        mask: mask.toString(),
+        near: nearSymptomSets(mask).map(String),
+        symptoms: [...request.symptoms],
+        ratio: request.ratio,
+        exclude: request.excludeId ?? 0,
+        publishedOnly: request.publishedOnly,
+        perEnd: SIMILAR_TUNING.perEnd,
+    },
+  );
+  return rows.map((r) => ({ id: r.id, stage: r.stage, symptoms: symptomsOfMask(r.bits), ratio: r.ratio, matched: r.matched ?? [] }));
+}
+
+// ---------------------------------------------------------------------------------------------
+// The exact score
 
 function stageScore(draft: StageId | null | undefined, other: StageId): number {
   if (!draft) return 0;
@@ -236,40 +355,42 @@ function stageScore(draft: StageId | null | undefined, other: StageId): number {
 
 const symptomWords = (ids: readonly string[]) => ids.map((id) => labelOf(SYMPTOMS, id).toLowerCase()).join(', ');
 
-/**
- * Scores candidates with the formula at the top of this file, best first, at most `limit`.
- * `fuse` may be handed in already built over exactly `candidates`' texts (the benchmark builds
- * one over all cases once).
- */
+/** Scores candidates with the formula at the top of this file, best first, at most `limit`. */
 export function rankCandidates(
   request: Pick<SimilarRequest, 'stage' | 'symptoms' | 'ratio' | 'limit'>,
-  terms: readonly Term[],
+  units: readonly Unit[],
   candidates: readonly Candidate[],
-  fuse: Fuse<string> = new Fuse(candidates.map((c) => c.text), FUSE_OPTIONS),
 ): Scored[] {
   const W = SIMILAR_WEIGHTS;
-  const hits = termHits(terms, fuse);
-  const idfTotal = terms.reduce((sum, t) => sum + t.idf, 0);
+  const alternatives = flattenAlternatives(units);
+  const idfTotal = units.reduce((sum, u) => sum + u.idf, 0);
   const draftSymptoms = new Set(request.symptoms);
   const scored: Scored[] = [];
-  candidates.forEach((candidate, index) => {
+  for (const candidate of candidates) {
+    const best = new Map<number, { credit: number; term: string }>();
+    for (const index of candidate.matched) {
+      const alt = alternatives[index];
+      if (!alt) continue;
+      const held = best.get(alt.unit);
+      if (!held || alt.credit > held.credit) best.set(alt.unit, { credit: alt.credit, term: alt.term });
+    }
     let textPart = 0;
-    const mentioned: { word: string; weight: number }[] = [];
-    for (const term of terms) {
-      const hit = hits.get(term.term)?.get(index) ?? 0;
-      if (hit <= 0) continue;
-      textPart += term.idf * hit;
-      if (hit >= 0.5) mentioned.push({ word: term.term, weight: term.idf * hit });
+    const mentioned: { term: string; weight: number }[] = [];
+    for (const [unit, hit] of best) {
+      textPart += units[unit].idf * hit.credit;
+      if (hit.credit >= 0.5) mentioned.push({ term: hit.term, weight: units[unit].idf * hit.credit });
     }
     const text = idfTotal > 0 ? textPart / idfTotal : 0;
-    const shared = candidate.symptoms.filter((s) => draftSymptoms.has(s));
+    // in the draft's order, as the grower named them
+    const caseSymptoms = new Set(candidate.symptoms);
+    const shared = [...draftSymptoms].filter((s) => caseSymptoms.has(s));
     const union = new Set([...candidate.symptoms, ...draftSymptoms]).size;
     const symptoms = draftSymptoms.size && union ? shared.length / union : 0;
     const stage = stageScore(request.stage, candidate.stage);
     const ratio =
       request.ratio === null || candidate.ratio === null ? 0 : Math.max(0, 1 - Math.abs(candidate.ratio - request.ratio) / SIMILAR_TUNING.ratioSpan);
     const score = W.text * text + W.symptoms * symptoms + W.stage * stage + W.ratio * ratio;
-    if (score < SIMILAR_TUNING.minScore) return;
+    if (score < SIMILAR_TUNING.minScore) continue;
 
     const reasons: { weight: number; text: string }[] = [];
     if (stage === 1) reasons.push({ weight: W.stage, text: `Same stage (${candidate.stage})` });
@@ -281,32 +402,15 @@ export function rankCandidates(
       });
     }
     if (mentioned.length) {
-      const words = mentioned.sort((a, b) => b.weight - a.weight).slice(0, 4).map((m) => m.word);
+      const words = mentioned.sort((a, b) => b.weight - a.weight).slice(0, 4).map((m) => m.term);
       reasons.push({ weight: W.text * text, text: `Mentions ${words.join(', ')}` });
     }
     if (ratio >= 0.5 && candidate.ratio !== null) {
       reasons.push({ weight: W.ratio * ratio, text: `A similar sugar ratio (${candidate.ratio.toFixed(2)} : 1)` });
     }
     scored.push({ candidate, score, reasons: reasons.sort((a, b) => b.weight - a.weight).map((r) => r.text) });
-  });
+  }
   return scored.sort((a, b) => b.score - a.score || b.candidate.id - a.candidate.id).slice(0, request.limit);
-}
-
-export function similarItem(s: Scored): SimilarItem {
-  const c = s.candidate;
-  return {
-    id: c.id,
-    title: c.title,
-    stage: c.stage,
-    symptoms: c.symptoms,
-    cause: c.cause,
-    remedy: c.remedy,
-    outcome: c.outcome,
-    status: c.status,
-    published: c.published,
-    score: Math.round(s.score * 1000) / 1000,
-    reasons: s.reasons,
-  };
 }
 
 export interface SimilarAnswer {
@@ -315,10 +419,23 @@ export interface SimilarAnswer {
   terms: { word: string; term: string }[];
 }
 
+type Shown = Omit<SimilarItem, 'score' | 'reasons' | 'stage'>;
+
 export async function findSimilarCases(request: SimilarRequest): Promise<SimilarAnswer> {
   const resolved = await resolvedCaseCount();
-  const terms = await correctedTerms(request.text, resolved);
-  const candidates = await findCandidates(request, terms);
-  const ranked = rankCandidates(request, terms, candidates);
-  return { items: ranked.map(similarItem), terms: terms.map((t) => ({ word: t.word, term: t.term })) };
+  const units = await readUnits(request.text, resolved);
+  const candidates = await findCandidates(request, units);
+  const ranked = rankCandidates(request, units, candidates);
+  const shown = ranked.length
+    ? await preparedQuery<Shown>(
+        `SELECT id, title, symptoms, cause, remedy, outcome, status, published FROM cases WHERE id = ANY($ids::int[])`,
+        { ids: ranked.map((r) => r.candidate.id) },
+      )
+    : [];
+  const byId = new Map(shown.map((row) => [row.id, row]));
+  const items = ranked.flatMap((r): SimilarItem[] => {
+    const row = byId.get(r.candidate.id);
+    return row ? [{ ...row, stage: r.candidate.stage, score: Math.round(r.score * 1000) / 1000, reasons: r.reasons }] : [];
+  });
+  return { items, terms: units.map((u) => ({ word: u.word, term: u.term })) };
 }
