@@ -16,6 +16,9 @@
 //   |our top 5 ∩ full top 5| / 5, averaged; and a tie-aware figure, where one of ours counts
 //   when its full score is as good as the full 5th (many notes tie on a one-word query). Both
 //   sides are compared on the fuse.js score alone, before the small track-record nudge.
+//
+// BENCH_NOTES changes the size; BENCH_CAPS=200,100 measures other candidate counts side by side;
+// BENCH_DIR=<folder> keeps the (stopped) cluster and the full ranking there between runs.
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -134,18 +137,21 @@ function misspell(text: string): string {
     .join(' ');
 }
 
-async function seed(): Promise<Synthetic[]> {
+/** The synthetic cases, the same on every run (so a kept database matches them). */
+function generate(): Synthetic[] {
+  return Array.from({ length: NOTES }, synthetic);
+}
+
+async function seed(all: Synthetic[]): Promise<void> {
   const sequelize = getSequelize();
   const [user] = await sequelize.query<{ id: number }>(
     `INSERT INTO users (email, display_name, password_hash, role) VALUES ('bench@example.test', 'Bench grower', 'x', 'grower') RETURNING id`,
     { type: QueryTypes.SELECT },
   );
-  const all: Synthetic[] = [];
   const started = performance.now();
   const BATCH = 2000;
   for (let from = 0; from < NOTES; from += BATCH) {
-    const rows = Array.from({ length: Math.min(BATCH, NOTES - from) }, synthetic);
-    all.push(...rows);
+    const rows = all.slice(from, from + BATCH);
     // Ids taken first, so each note is built for the right case.
     const ids = await sequelize.query<{ id: number }>(`SELECT nextval('cases_id_seq')::int AS id FROM generate_series(1, $1)`, {
       bind: [rows.length],
@@ -233,7 +239,6 @@ async function seed(): Promise<Synthetic[]> {
   await sequelize.query('ANALYZE cases; ANALYZE library_entries; ANALYZE search_terms');
   const [terms] = await sequelize.query<{ n: number }>(`SELECT count(*)::int AS n FROM search_terms`, { type: QueryTypes.SELECT });
   say(`search_terms: ${terms.n} words in ${((performance.now() - indexing) / 1000).toFixed(1)} s`);
-  return all;
 }
 
 interface Query {
@@ -267,13 +272,16 @@ const p95 = (xs: number[]) => quantile([...xs].sort((a, b) => a - b), 0.95);
 type Entry = RankableEntry & { kind: LibraryKind };
 
 async function main(): Promise<number> {
-  const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'sporewell-bench-library-'));
+  // BENCH_DIR keeps the cluster (stopped) and the slow full ranking between runs, for tuning.
+  const kept = process.env.BENCH_DIR ? path.resolve(process.env.BENCH_DIR) : null;
+  const tmp = kept ?? fs.mkdtempSync(path.join(os.tmpdir(), 'sporewell-bench-library-'));
+  fs.mkdirSync(tmp, { recursive: true });
   fs.chmodSync(tmp, 0o755);
   let dataDir: string | null = null;
   const cleanup = () => {
     if (dataDir) stopCluster(dataDir, 'immediate');
     dataDir = null;
-    fs.rmSync(tmp, { recursive: true, force: true });
+    if (!kept) fs.rmSync(tmp, { recursive: true, force: true });
   };
   process.on('SIGINT', () => {
     cleanup();
@@ -287,7 +295,12 @@ async function main(): Promise<number> {
     initModels(sequelize);
     await migrate(sequelize);
     await loadKnowledge();
-    const all = await seed();
+    const all = generate();
+    const [{ n: present }] = await getSequelize().query<{ n: number }>(`SELECT count(*)::int AS n FROM library_entries WHERE kind = 'note'`, {
+      type: QueryTypes.SELECT,
+    });
+    if (present === 0) await seed(all);
+    else say(`reusing ${present.toLocaleString('en')} field notes in ${tmp}`);
     const set = queries(all);
     const request = (q: Query) => ({ q: q.q, stage: q.stage, kind: q.kind, page: 1, pageSize: 20 });
 
@@ -299,20 +312,27 @@ async function main(): Promise<number> {
     const indexStarted = performance.now();
     const ranker = fuseRanker(everything);
     const indexSeconds = (performance.now() - indexStarted) / 1000;
+
     // The same weighted words on both sides (their rarity comes from search_terms).
     const weighted = new Map<Query, Awaited<ReturnType<typeof narrow>>['words']>();
     for (const q of set) weighted.set(q, (await narrow(q.q, { stage: q.stage, symptoms: [], kind: q.kind })).words);
     const fullStarted = performance.now();
-    const full = new Map<Query, { top: number[]; fifth: number; score: Map<number, number> }>();
+    // What the comparison needs of the full ranking: its top 5, its 5th score, and every entry
+    // scoring as well as the 5th (ties). Cached per query and weighting when BENCH_DIR is kept.
+    const cacheFile = path.join(tmp, `full-ranking-${NOTES}.json`);
+    const cache: Record<string, { top: number[]; fifth: number; tied: number[] }> = kept && fs.existsSync(cacheFile) ? JSON.parse(fs.readFileSync(cacheFile, 'utf8')) : {};
+    const full = new Map<Query, { top: number[]; fifth: number; tied: Set<number> }>();
     for (const q of set) {
-      const passes = (e: Entry) => (!q.stage || e.stages.includes(q.stage)) && (!q.kind || e.kind === q.kind);
-      const ranked = byScore(fuseScores(ranker, weighted.get(q)!).filter((x) => x.score < 1 && passes(x.entry)));
-      full.set(q, {
-        top: ranked.slice(0, 5).map((x) => x.entry.id),
-        fifth: ranked[Math.min(4, ranked.length - 1)]?.score ?? 1,
-        score: new Map(ranked.map((x) => [x.entry.id, x.score])),
-      });
+      const key = JSON.stringify([q.q, q.stage ?? null, q.kind ?? null, weighted.get(q)]);
+      if (!cache[key]) {
+        const passes = (e: Entry) => (!q.stage || e.stages.includes(q.stage)) && (!q.kind || e.kind === q.kind);
+        const ranked = byScore(fuseScores(ranker, weighted.get(q)!).filter((x) => x.score < 1 && passes(x.entry)));
+        const fifth = ranked[Math.min(4, ranked.length - 1)]?.score ?? 1;
+        cache[key] = { top: ranked.slice(0, 5).map((x) => x.entry.id), fifth, tied: ranked.filter((x) => x.score <= fifth + 1e-9).map((x) => x.entry.id) };
+      }
+      full.set(q, { top: cache[key].top, fifth: cache[key].fifth, tied: new Set(cache[key].tied) });
     }
+    if (kept) fs.writeFileSync(cacheFile, JSON.stringify(cache));
     say(`full fuse.js ranking: index built in ${indexSeconds.toFixed(1)} s, then ${((performance.now() - fullStarted) / set.length / 1000).toFixed(2)} s per query on average`);
 
     const chosen = LIBRARY_TUNING.candidates;
@@ -374,7 +394,7 @@ async function main(): Promise<number> {
           continue;
         }
         strict += mine.filter((id) => truth.top.includes(id)).length / denominator;
-        tieAware += mine.filter((id) => truth.top.includes(id) || (truth.score.get(id) ?? 2) <= truth.fifth + 1e-9).length / denominator;
+        tieAware += mine.filter((id) => truth.top.includes(id) || truth.tied.has(id)).length / denominator;
       }
       console.log(`candidates ${cap}${cap === chosen ? ' (the service’s setting)' : ''}`);
       console.log(`  latency   p50 ${ms(quantile(times, 0.5))}   p95 ${ms(quantile(times, 0.95))}   max ${ms(times[times.length - 1])}   (budget p95 ≤ 25 ms)`);

@@ -17,11 +17,13 @@ async function signedInPage(email: string, device: typeof PHONE | typeof DESKTOP
   contexts.push(context);
   const page = await context.newPage();
   await signIn(page, email);
-  await expect.poll(() => new URL(page.url()).pathname).not.toBe('/sign-in');
+  await expect.poll(() => new URL(page.url()).pathname, WAIT).not.toBe('/sign-in');
   return page;
 }
 
 const TITLE = 'Plum juice foaming over the rim';
+// Generous: a loaded machine can take seconds to hash a password or build a page.
+const WAIT = { timeout: 20_000 };
 
 describe('closing a case into the Field Library', () => {
   test('when the demo mentor closes a case and the demo grower reports from the e-mail link, then a visitor finds the field note by a misspelt word', async () => {
@@ -48,7 +50,7 @@ describe('closing a case into the Field Library', () => {
     await mentor.getByLabel('How to do it (optional)').fill('Carry the jar to the cool back porch, skim the foam, check again tomorrow.');
     await mentor.getByLabel('Summary in plain words').fill('The plum juice was foaming because the shelf by the stove is too warm. Moved somewhere cool it should settle within a day or two.');
     await mentor.getByRole('button', { name: 'Close and start watching' }).click();
-    await expect.poll(() => mentor.getByText('Closed: the case is now watching').isVisible()).toBe(true);
+    await expect.poll(() => mentor.getByText('Closed: the case is now watching').isVisible(), WAIT).toBe(true);
     await shot(mentor, 'closing-case-closed-desktop');
 
     // The grower's e-mail, as the local mail catcher holds it (read as the demo steward).
@@ -62,7 +64,7 @@ describe('closing a case into the Field Library', () => {
           link = closed?.text.match(/https?:\/\/\S+\/cases\/\d+\/recovery-report/)?.[0];
           return link;
         },
-        { timeout: 20_000 },
+        WAIT,
       )
       .toBeTruthy();
     const reportPath = new URL(link!).pathname;
@@ -70,15 +72,15 @@ describe('closing a case into the Field Library', () => {
 
     // The grower follows the link on a phone and files the report, agreeing to share it.
     await grower.goto(reportPath);
-    await expect.poll(() => grower.getByRole('heading', { name: 'How did the batch do?' }).isVisible()).toBe(true);
+    await expect.poll(() => grower.getByRole('heading', { name: 'How did the batch do?' }).isVisible(), WAIT).toBe(true);
     await shot(grower, 'recovery-report-phone');
     await grower.getByRole('radio', { name: /Recovered/ }).check();
     await grower.getByRole('radio', { name: /^5 stars/ }).check({ force: true });
     await grower.getByLabel('Anything to add? (optional)').fill('Settled overnight on the porch. Thank you Marta!');
     await grower.getByRole('checkbox', { name: /Share this case in the Field Library/ }).check();
     await grower.getByRole('button', { name: 'Send the report' }).click();
-    await expect.poll(() => grower.getByRole('heading', { name: 'Thank you, the report is in' }).isVisible()).toBe(true);
-    await expect.poll(() => grower.getByRole('link', { name: 'Read the field note' }).isVisible()).toBe(true);
+    await expect.poll(() => grower.getByRole('heading', { name: 'Thank you, the report is in' }).isVisible(), WAIT).toBe(true);
+    await expect.poll(() => grower.getByRole('link', { name: 'Read the field note' }).isVisible(), WAIT).toBe(true);
     await shot(grower, 'recovery-report-filed-phone');
 
     // A visitor, not signed in, finds it by misspelt words.
@@ -90,11 +92,11 @@ describe('closing a case into the Field Library', () => {
       await visitor.getByRole('searchbox', { name: 'Search in your own words' }).fill('plumm foamng');
       await visitor.getByRole('button', { name: 'Search' }).click();
       const result = visitor.getByRole('link', { name: TITLE });
-      await expect.poll(() => result.isVisible(), { timeout: 15_000 }).toBe(true);
+      await expect.poll(() => result.isVisible(), WAIT).toBe(true);
       await shot(visitor, `library-misspelt-search-${name}`);
       await result.click();
-      await expect.poll(() => visitor.getByRole('heading', { level: 1, name: TITLE }).isVisible()).toBe(true);
-      await expect.poll(() => visitor.getByRole('heading', { name: 'Stay safe with living cultures' }).isVisible()).toBe(true);
+      await expect.poll(() => visitor.getByRole('heading', { level: 1, name: TITLE }).isVisible(), WAIT).toBe(true);
+      await expect.poll(() => visitor.getByRole('heading', { name: 'Stay safe with living cultures' }).isVisible(), WAIT).toBe(true);
       const text = await visitor.locator('main').innerText();
       // The grower's name, e-mail and the mentor's name never reach the public page.
       for (const secret of ['Rowan', 'Tillsworth', 'grower@example.test', 'Marta', 'Veldhoen']) expect(text).not.toContain(secret);

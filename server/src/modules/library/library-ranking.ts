@@ -4,7 +4,10 @@
 //
 //   score = 1 − Σ idf(w) · (1 − fuse(w)) / Σ idf(w),   idf(w) = ln(1 + resolved cases / cases with w)
 //
-// (0 is a perfect match of every word, 1 no match at all). A word's rarity comes from
+// (0 is a perfect match of every word, 1 no match at all). fuse.js scores a word in an entry as
+// Π over the fields it is found in of s^(weight · norm), s being its match score in that field
+// (0, an exact match, counts as Number.EPSILON) and norm = 1/√(tokens in the field); PostgreSQL
+// mirrors that to rank candidates (library.repository.ts, `matchHead`). A word's rarity comes from
 // search_terms, the same counts "batches like this" weighs words by, not from the entries at hand:
 // so an entry scores the same whether fuse.js sees 200 candidates or all 100,000 entries, and the
 // benchmark's full ranking is comparable with ours entry for entry.
@@ -54,6 +57,20 @@ export function labelsOf(entry: Pick<RankableEntry, 'stages' | 'symptoms' | 'cau
   ]
     .filter(Boolean)
     .join(', ');
+}
+
+/** The fields fuse.js searches, with their weights normalised the way fuse.js does (sum 1). */
+export const RANKED_FIELDS = (() => {
+  const keys = FUSE_OPTIONS.keys as Array<{ name: 'title' | 'summary' | 'labels'; weight: number }>;
+  const total = keys.reduce((sum, k) => sum + k.weight, 0);
+  return keys.map((k) => ({ field: k.name, weight: k.weight / total }));
+})();
+
+/** What fuse.js scores a typed word against a field holding `term` (0 exact, up to its
+ * threshold), or null when fuse.js would not match it at all. */
+export function termScore(typed: string, term: string): number | null {
+  const result = Fuse.match(typed, term, { ignoreLocation: true, threshold: FUSE_OPTIONS.threshold, isCaseSensitive: false });
+  return result.isMatch ? result.score : null;
 }
 
 /** How much a word counts: rarer words more (the +1 keeps a word in every case above zero). */

@@ -5,6 +5,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import type { LibraryKind, LibraryListItem } from '../../../shared/library-schemas';
 import type { OutcomeCounts } from '../../../shared/remedy-records';
 import { getSequelize } from '../../db/sequelize';
+import { RANKED_FIELDS } from './library-ranking';
 
 /** A list item as stored: the id, and the date as PostgreSQL gives it. */
 export type EntryRow = Omit<LibraryListItem, 'publishedAt' | 'remedyRecord'> & { id: number; publishedAt: Date };
@@ -48,35 +49,93 @@ function filterSql(filters: EntryFilters, bind: unknown[]): string {
   return parts.length ? `AND ${parts.join(' AND ')}` : '';
 }
 
+/** A query word for ranking: its weight, and what it may be read as in a field, each with the
+ * natural log of the score fuse.js gives that reading (ln ε for an exact match). */
+export interface RankWord {
+  idf: number;
+  readings: ReadonlyArray<{ term: string; lnScore: number }>;
+}
+
+function literal(x: number): string {
+  if (!Number.isFinite(x)) throw new RangeError(`not a finite number: ${x}`);
+  return x.toFixed(12);
+}
+
+/**
+ * The rank: Σ over words of idf · (1 − fuse's score of the word in the entry), with that score
+ * = exp(Σ over fields of weight · norm · ln s), s the best reading found in the field (fields
+ * where none is found add 0, so a word found nowhere scores 1 and gains nothing). Terms go in as
+ * bind parameters; only the computed numbers are written into the SQL.
+ */
+function rankSql(words: readonly RankWord[], bind: unknown[]): { from: string; expression: string } {
+  const aliases = new Map<string, string>();
+  const queries: string[] = [];
+  for (const word of words) {
+    for (const { term } of word.readings) {
+      if (aliases.has(term)) continue;
+      bind.push(term);
+      const alias = `r${aliases.size}`;
+      aliases.set(term, alias);
+      queries.push(`websearch_to_tsquery('english', $${bind.length}) AS ${alias}`);
+    }
+  }
+  const gains = words.map((word) => {
+    const exponent = RANKED_FIELDS.map(({ field, weight }) => {
+      const found = word.readings.map((r) => `WHEN e.${field}_tsv @@ rq.${aliases.get(r.term)} THEN ${literal(r.lnScore)}`).join(' ');
+      return `${literal(weight)} * e.${field}_norm * (CASE ${found} ELSE 0 END)`;
+    }).join(' + ');
+    return `${literal(word.idf)} * (1 - exp(${exponent}))`;
+  });
+  return { from: `(SELECT ${queries.join(', ')}) AS rq`, expression: gains.join(' + ') || '0' };
+}
+
 export const libraryRepository = {
-  /** Each query word's closest known words (trigram similarity over search_terms), best first. */
-  async knownWordsLike(words: readonly string[], perWord: number, minSimilarity: number): Promise<Array<{ word: string; term: string; similarity: number; uses: number }>> {
+  /** Each query word's closest known words (trigram similarity over search_terms), best first,
+   * and known words that contain it (fuse.js finds a word inside a longer one as an exact match). */
+  async knownWordsLike(
+    words: readonly string[],
+    perWord: number,
+    minSimilarity: number,
+  ): Promise<Array<{ word: string; term: string; similarity: number; uses: number }>> {
     if (!words.length) return [];
     return getSequelize().query(
       `SELECT w.word, s.term, s.similarity, s.uses
          FROM unnest($1::text[]) AS w(word)
          CROSS JOIN LATERAL (
-           SELECT t.term, t.uses, similarity(t.term, w.word) AS similarity
-             FROM search_terms t
-            WHERE t.term % w.word AND similarity(t.term, w.word) >= $3
-            ORDER BY similarity(t.term, w.word) DESC, t.uses DESC, t.term
-            LIMIT $2
-         ) s`,
+           (SELECT t.term, t.uses, similarity(t.term, w.word) AS similarity
+              FROM search_terms t
+             WHERE t.term % w.word AND similarity(t.term, w.word) >= $3
+             ORDER BY similarity(t.term, w.word) DESC, t.uses DESC, t.term
+             LIMIT $2)
+           UNION
+           (SELECT t.term, t.uses, similarity(t.term, w.word) AS similarity
+              FROM search_terms t
+             WHERE t.term LIKE '%' || w.word || '%' AND t.term <> w.word
+             ORDER BY t.uses DESC, t.term
+             LIMIT $2)
+         ) s
+        ORDER BY w.word, s.similarity DESC, s.uses DESC`,
       { bind: [[...words], perWord, minSimilarity], type: QueryTypes.SELECT },
     );
   },
 
-  /** PostgreSQL narrows: entries whose title, summary or labels contain any of the words (GIN on
-   * search_head), best text rank first. The rank's normalisation 1 divides by the log of the
-   * vector's length, so a short title that names the word beats a long one, as in fuse.js. */
-  async matchHead(words: readonly string[], filters: EntryFilters, cap: number, exclude: readonly number[]): Promise<RankedEntryRow[]> {
-    if (!words.length || cap <= 0) return [];
+  /** PostgreSQL narrows: entries whose title, summary or labels contain any of `narrowing` (GIN
+   * on search_head), ranked the way fuse.js will score them (rankSql), best first. */
+  async matchHead(
+    words: readonly RankWord[],
+    narrowing: readonly string[],
+    filters: EntryFilters,
+    cap: number,
+    exclude: readonly number[],
+  ): Promise<RankedEntryRow[]> {
+    if (!narrowing.length || !words.length || cap <= 0) return [];
     // websearch_to_tsquery never fails on odd input; the words are a-z only anyway.
-    const bind: unknown[] = [words.join(' or '), cap, [...exclude]];
+    const bind: unknown[] = [narrowing.join(' or '), cap, [...exclude]];
+    const rank = rankSql(words, bind);
     const where = filterSql(filters, bind);
     return getSequelize().query<RankedEntryRow>(
-      `SELECT ${LIST_COLUMNS}, ts_rank(e.search_head, q.query, 1)::float8 AS rank
-         FROM library_entries e, websearch_to_tsquery('english', $1) AS q(query)
+      `SELECT ${LIST_COLUMNS}, (${rank.expression})::float8 AS rank
+         FROM library_entries e, websearch_to_tsquery('english', $1) AS q(query), ${rank.from}
         WHERE e.search_head @@ q.query AND e.id <> ALL($3::int[]) ${where}
         ORDER BY rank DESC, e.id DESC
         LIMIT $2`,

@@ -26,8 +26,8 @@ import { describeRecord, remedyRecords } from '../../../shared/remedy-records';
 import { notFound } from '../../lib/errors';
 import { queryWords } from '../cases/search-index';
 import { resolvedCaseCount } from '../cases/similar.service';
-import { byScore, fuseScores, idfOf, type WeightedWord } from './library-ranking';
-import { libraryRepository as repo, type EntryFilters, type EntryRow, type RankedEntryRow } from './library.repository';
+import { byScore, fuseScores, idfOf, termScore, type WeightedWord } from './library-ranking';
+import { libraryRepository as repo, type EntryFilters, type EntryRow, type RankedEntryRow, type RankWord } from './library.repository';
 
 /** How many candidates PostgreSQL hands to fuse.js (scripts/bench-library.ts measures the choice). */
 export const LIBRARY_TUNING = {
@@ -98,11 +98,20 @@ export async function narrow(q: string, filters: EntryFilters): Promise<Narrowed
   if (!typed.length) return { words: [], readAs: {}, candidates: [] };
   const [known, resolved] = await Promise.all([repo.knownWordsLike(typed, KNOWN_WORDS_PER_WORD, MIN_SIMILARITY), resolvedCaseCount()]);
   const readAs: Record<string, string[]> = {};
+  const rankWords: RankWord[] = [];
   const words: WeightedWord[] = typed.map((word) => {
     // Best reading first (the query orders by similarity): the word itself when it is known.
-    const readings = known.filter((k) => k.word === word);
-    if (readings.length && !readings.some((k) => k.term === word)) readAs[word] = readings.map((k) => k.term);
-    return { word, idf: idfOf(resolved, readings[0]?.uses ?? 1) };
+    const similar = known.filter((k) => k.word === word);
+    const corrections = similar.filter((k) => k.similarity < 1 && !k.term.includes(word));
+    if (corrections.length && !similar.some((k) => k.term === word)) readAs[word] = corrections.map((k) => k.term);
+    const own = similar.find((k) => k.term === word) ?? corrections[0];
+    const idf = idfOf(resolved, own?.uses ?? 1);
+    const readings = [{ term: word, score: 0 }, ...similar.filter((k) => k.term !== word).map((k) => ({ term: k.term, score: termScore(word, k.term) }))]
+      .filter((r): r is { term: string; score: number } => r.score !== null)
+      .sort((a, b) => a.score - b.score)
+      .map((r) => ({ term: r.term, lnScore: Math.log(Math.max(r.score, Number.EPSILON)) }));
+    rankWords.push({ idf, readings });
+    return { word, idf };
   });
   // Rare words narrow first (they weigh most in the ranking, and they pull in few rows); the
   // common ones fill what room is left. A word no case has counts as rare.
@@ -119,9 +128,9 @@ export async function narrow(q: string, filters: EntryFilters): Promise<Narrowed
   const rest = byRarity.map(([term]) => term).filter((t) => !first.includes(t));
   const allWords = [...first, ...rest];
   const cap = LIBRARY_TUNING.candidates;
-  let candidates = await repo.matchHead(first, filters, cap, []);
+  let candidates = await repo.matchHead(rankWords, first, filters, cap, []);
   if (candidates.length < cap && rest.length) {
-    candidates = [...candidates, ...(await repo.matchHead(rest, filters, cap - candidates.length, candidates.map((c) => c.id)))];
+    candidates = [...candidates, ...(await repo.matchHead(rankWords, rest, filters, cap - candidates.length, candidates.map((c) => c.id)))];
   }
   if (candidates.length < cap) {
     candidates = [...candidates, ...(await repo.matchBody(allWords, filters, candidates.map((c) => c.id), cap - candidates.length))];

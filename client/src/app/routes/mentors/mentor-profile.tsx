@@ -72,7 +72,7 @@ export default function MentorProfileRoute() {
             <span className="text-base text-loam-soft">
               {record.trials === 0
                 ? 'no recovery reports yet'
-                : `${record.text}; likely between ${percentText(record.lower)} and ${percentText(record.upper)}`}
+                : `${record.saved} of ${record.trials} batches${record.partly ? ` (${record.partly} of them partly)` : ''}; the true rate likely lies between ${percentText(record.lower)} and ${percentText(record.upper)}`}
             </span>
           </Stat>
           <Stat label="Advice rated" value={`${record.stars.average.toFixed(1)} of 5`}>

@@ -10,7 +10,13 @@ export function ClosingRecord({ state }: { state: ClosingState }) {
     <div className="flex flex-col gap-3">
       <p className="text-loam-soft">
         Closed {state.closedAt && dayText(state.closedAt)}
-        {state.closedBy && <> by {state.closedBy.displayName}</>}.
+        {state.closedBy && (
+          <>
+            {' '}
+            by <Link to={`/mentors/${state.closedBy.id}`}>{state.closedBy.displayName}</Link>
+          </>
+        )}
+        .
       </p>
       <dl className="grid gap-x-4 gap-y-1 sm:grid-cols-[auto_1fr]">
         {state.cause && (
