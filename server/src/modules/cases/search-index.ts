@@ -89,10 +89,16 @@ export async function indexResolvedCases(which: readonly number[] | 'all', trans
         WHERE char_length(w) BETWEEN ${MIN_WORD} AND ${MAX_WORD} AND w <> ALL($stop::text[])
      ), counted AS (
        SELECT term, count(*) FILTER (WHERE NOT terms_indexed) AS n FROM words GROUP BY term
-     ), upserted AS (
+     ), counted_anew AS (
        INSERT INTO search_terms (term, uses)
-       SELECT term, GREATEST(n, 1) FROM counted
-       ON CONFLICT (term) DO UPDATE SET uses = search_terms.uses + (SELECT n FROM counted c WHERE c.term = EXCLUDED.term)
+       SELECT term, n FROM counted WHERE n > 0
+       ON CONFLICT (term) DO UPDATE SET uses = search_terms.uses + EXCLUDED.uses
+       RETURNING 1
+     ), known_already AS (
+       -- words of a case counted before: known from now on, but not counted twice
+       INSERT INTO search_terms (term, uses)
+       SELECT term, 1 FROM counted WHERE n = 0
+       ON CONFLICT (term) DO NOTHING
        RETURNING 1
      ), marked AS (
        UPDATE cases SET terms_indexed = true WHERE id IN (SELECT id FROM target) AND NOT terms_indexed RETURNING 1

@@ -5,7 +5,7 @@
 //   score = 0.45 × text + 0.25 × symptoms + 0.20 × stage + 0.10 × ratio
 //
 //   text      Σ idf(word) × credit(word, case) / Σ idf(word) over the draft's words (title and
-//             description, at most MAX_WORDS, the rarest kept), idf = ln(1 + resolved cases /
+//             description, at most SIMILAR_TUNING.maxWords, the rarest kept), idf = ln(1 + resolved cases /
 //             cases using the word). A word the resolved cases use is credited 1 when the case
 //             has it (full-text match, so "bubbles" meets "bubbling"). A word no case uses is
 //             taken as misspelt: its nearest known words by trigram similarity are the
@@ -18,16 +18,17 @@
 // Cases under 0.15 are not shown (a similar ratio alone, say). Ties go to the newer case.
 //
 // How it stays fast (QUALITY.md: p95 ≤ 25 ms at 100,000 resolved cases): PostgreSQL narrows to
-// at most 200 candidates with the same formula, from two ends —
+// at most 200 candidates, from two ends —
 //   by structure: the resolved cases of the draft's stage whose symptom set is one of the
 //     nearest few hundred to the draft's (Jaccard ≥ 0.4, at most two symptoms dropped or added;
 //     symptoms are a bit mask, looked up in the covering index of migration 0101), best 100 by
 //     the structural part;
 //   by text: the cases holding the draft's rarer words (the GIN index on `search`, one lookup
 //     per word, never reading the big tsvector), best 100 by text + structure; words so common
-//     that together they would pull in more than TEXT_ROW_BUDGET cases are left out of this
-//     end (they weigh little anyway) but still count in the score.
-// The score of the ≤ 200 candidates is then computed exactly. scripts/bench-similar.ts measures
+//     that together they would pull in more than SIMILAR_TUNING.textRowBudget cases are left
+//     out of this end (they weigh little anyway) but still count in the score.
+// The same query reads which of all the draft's words each candidate holds, and the score of
+// the ≤ 200 candidates is then computed exactly here. scripts/bench-similar.ts measures
 // the time and compares the top 5 with the same formula computed over every case, misspelt
 // words matched by fuse.js over the whole vocabulary.
 import Fuse from 'fuse.js';
