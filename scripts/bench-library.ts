@@ -387,6 +387,11 @@ async function main(): Promise<number> {
         steps.fuse.push(performance.now() - at);
         const mine = ranked.filter((x) => x.score < 1).slice(0, 5).map((x) => x.entry.id);
         const truth = full.get(q)!;
+        if (process.env.BENCH_VERBOSE) {
+          const found = new Set(narrowed.candidates.map((c) => c.id));
+          const agree = mine.filter((id) => truth.top.includes(id) || truth.tied.has(id)).length;
+          console.log(`  ${agree}/5 agree, ${truth.top.filter((id) => found.has(id)).length}/5 of the full top among candidates, narrowing ${steps.sql.at(-1)!.toFixed(0)} ms: ${JSON.stringify(q.q)}${q.stage ? ` stage ${q.stage}` : ''}`);
+        }
         const denominator = Math.max(mine.length, truth.top.length);
         if (denominator === 0) {
           strict += 1;

@@ -6,7 +6,7 @@
 //
 // (0 is a perfect match of every word, 1 no match at all). fuse.js scores a word in an entry as
 // Π over the fields it is found in of s^(weight · norm), s being its match score in that field
-// (0, an exact match, counts as Number.EPSILON) and norm = 1/√(tokens in the field); PostgreSQL
+// (never below 0.001, not even for an exact match) and norm = 1/√(tokens in the field); PostgreSQL
 // mirrors that to rank candidates (library.repository.ts, `matchHead`). A word's rarity comes from
 // search_terms, the same counts "batches like this" weighs words by, not from the entries at hand:
 // so an entry scores the same whether fuse.js sees 200 candidates or all 100,000 entries, and the

@@ -50,7 +50,7 @@ function filterSql(filters: EntryFilters, bind: unknown[]): string {
 }
 
 /** A query word for ranking: its weight, and what it may be read as in a field, each with the
- * natural log of the score fuse.js gives that reading (ln ε for an exact match). */
+ * natural log of the score fuse.js gives that reading (an exact match scores 0.001 there). */
 export interface RankWord {
   idf: number;
   readings: ReadonlyArray<{ term: string; lnScore: number }>;
@@ -76,7 +76,7 @@ function rankSql(words: readonly RankWord[], bind: unknown[]): { from: string; e
       bind.push(term);
       const alias = `r${aliases.size}`;
       aliases.set(term, alias);
-      queries.push(`websearch_to_tsquery('english', $${bind.length}) AS ${alias}`);
+      queries.push(`websearch_to_tsquery('simple', $${bind.length}) AS ${alias}`);
     }
   }
   const gains = words.map((word) => {
@@ -95,6 +95,7 @@ export const libraryRepository = {
   async knownWordsLike(
     words: readonly string[],
     perWord: number,
+    containingPerWord: number,
     minSimilarity: number,
   ): Promise<Array<{ word: string; term: string; similarity: number; uses: number }>> {
     if (!words.length) return [];
@@ -112,10 +113,10 @@ export const libraryRepository = {
               FROM search_terms t
              WHERE t.term LIKE '%' || w.word || '%' AND t.term <> w.word
              ORDER BY t.uses DESC, t.term
-             LIMIT $2)
+             LIMIT $4)
          ) s
         ORDER BY w.word, s.similarity DESC, s.uses DESC`,
-      { bind: [[...words], perWord, minSimilarity], type: QueryTypes.SELECT },
+      { bind: [[...words], perWord, minSimilarity, containingPerWord], type: QueryTypes.SELECT },
     );
   },
 

@@ -36,6 +36,10 @@ export const LIBRARY_TUNING = {
   rowBudget: 4000,
 };
 const KNOWN_WORDS_PER_WORD = 3;
+/** Known words containing a typed one, per word (fuse.js matches inside longer words). */
+const CONTAINING_PER_WORD = 12;
+/** fuse.js never scores a match below this, not even an exact one. */
+const FUSE_SCORE_FLOOR = 0.001;
 const MIN_SIMILARITY = 0.3;
 const MAX_WORDS = 8;
 const FEW_MATCHES = 5;
@@ -96,7 +100,7 @@ export interface Narrowed {
 export async function narrow(q: string, filters: EntryFilters): Promise<Narrowed> {
   const typed = searchWordsOf(q);
   if (!typed.length) return { words: [], readAs: {}, candidates: [] };
-  const [known, resolved] = await Promise.all([repo.knownWordsLike(typed, KNOWN_WORDS_PER_WORD, MIN_SIMILARITY), resolvedCaseCount()]);
+  const [known, resolved] = await Promise.all([repo.knownWordsLike(typed, KNOWN_WORDS_PER_WORD, CONTAINING_PER_WORD, MIN_SIMILARITY), resolvedCaseCount()]);
   const readAs: Record<string, string[]> = {};
   const rankWords: RankWord[] = [];
   const words: WeightedWord[] = typed.map((word) => {
@@ -109,24 +113,27 @@ export async function narrow(q: string, filters: EntryFilters): Promise<Narrowed
     const readings = [{ term: word, score: 0 }, ...similar.filter((k) => k.term !== word).map((k) => ({ term: k.term, score: termScore(word, k.term) }))]
       .filter((r): r is { term: string; score: number } => r.score !== null)
       .sort((a, b) => a.score - b.score)
-      .map((r) => ({ term: r.term, lnScore: Math.log(Math.max(r.score, Number.EPSILON)) }));
+      .map((r) => ({ term: r.term, lnScore: Math.log(Math.max(r.score, FUSE_SCORE_FLOOR)) }));
     rankWords.push({ idf, readings });
     return { word, idf };
   });
   // Rare words narrow first (they weigh most in the ranking, and they pull in few rows); the
-  // common ones fill what room is left. A word no case has counts as rare.
-  const usesOf = new Map<string, number>(typed.map((w) => [w, 1]));
-  for (const k of known) usesOf.set(k.term, k.uses);
-  const byRarity = [...usesOf.entries()].sort((a, b) => a[1] - b[1]);
+  // common ones fill what room is left. A word goes with all its readings, and its size is what
+  // they pull in together; a word no case has counts as rare.
+  const usesOf = new Map<string, number>(known.map((k) => [k.term, k.uses]));
+  const groups = rankWords
+    .map((w) => ({ terms: w.readings.map((r) => r.term), uses: w.readings.reduce((sum, r) => sum + (usesOf.get(r.term) ?? 1), 0) }))
+    .sort((a, b) => a.uses - b.uses);
   const first: string[] = [];
+  const rest: string[] = [];
   let rows = 0;
-  for (const [term, uses] of byRarity) {
-    if (first.length > 0 && rows + uses > LIBRARY_TUNING.rowBudget) break;
-    first.push(term);
-    rows += uses;
+  for (const group of groups) {
+    if (first.length === 0 || rows + group.uses <= LIBRARY_TUNING.rowBudget) {
+      first.push(...group.terms);
+      rows += group.uses;
+    } else rest.push(...group.terms);
   }
-  const rest = byRarity.map(([term]) => term).filter((t) => !first.includes(t));
-  const allWords = [...first, ...rest];
+  const allWords = [...new Set([...first, ...rest])];
   const cap = LIBRARY_TUNING.candidates;
   let candidates = await repo.matchHead(rankWords, first, filters, cap, []);
   if (candidates.length < cap && rest.length) {
