@@ -59,6 +59,8 @@ export interface ThreadLoadResult {
   /** the same for the messages sent in the first and in the second half of the sending */
   latencyByHalf: [ReturnType<typeof percentiles>, ReturnType<typeof percentiles>];
   ackLatency: ReturnType<typeof percentiles>;
+  /** from the sender's ack to the other socket's receipt (negative when the receipt came first) */
+  afterAck: ReturnType<typeof percentiles>;
   /** CPU ms over the sending and draining, by probe name (null where it could not be read) */
   cpuMs: Record<string, number | null>;
   /** every clientId of this run starts with it (to count what the server stored) */
@@ -106,6 +108,7 @@ export async function runThreadLoad(options: ThreadLoadOptions): Promise<ThreadL
   const receivedAt = new Float64Array(total);
   const receipts = new Uint16Array(total);
   const ackOk = new Uint8Array(total);
+  const ackedAt = new Float64Array(total);
   const ackMs: number[] = [];
   const ackFailures: Record<string, number> = {};
   let misdelivered = 0;
@@ -174,6 +177,7 @@ export async function runThreadLoad(options: ThreadLoadOptions): Promise<ThreadL
           if (error) return fail('timeout');
           if (!answer?.ok) return fail(answer?.error?.code ?? 'no_answer');
           ackOk[k] = 1;
+          ackedAt[k] = performance.now();
           acked += 1;
           settled += 1;
           ackMs.push(performance.now() - sentAt[k]);
@@ -215,6 +219,7 @@ export async function runThreadLoad(options: ThreadLoadOptions): Promise<ThreadL
     );
 
     const latencies: number[] = [];
+    const afterAck: number[] = [];
     const halves: [number[], number[]] = [[], []];
     const middle = sendStarted + (sendSeconds * 1000) / 2;
     let received = 0;
@@ -225,6 +230,7 @@ export async function runThreadLoad(options: ThreadLoadOptions): Promise<ThreadL
         received += 1;
         latencies.push(receivedAt[k] - sentAt[k]);
         halves[sentAt[k] < middle ? 0 : 1].push(receivedAt[k] - sentAt[k]);
+        if (ackOk[k]) afterAck.push(receivedAt[k] - ackedAt[k]);
       } else if (ackOk[k]) lost += 1;
       if (receipts[k] > 1) duplicated += receipts[k] - 1;
     }
@@ -245,6 +251,7 @@ export async function runThreadLoad(options: ThreadLoadOptions): Promise<ThreadL
       latency: percentiles(latencies),
       latencyByHalf: [percentiles(halves[0]), percentiles(halves[1])],
       ackLatency: percentiles(ackMs),
+      afterAck: percentiles(afterAck),
       cpuMs,
       clientIdPrefix: prefix,
     };
