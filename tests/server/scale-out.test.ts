@@ -7,7 +7,6 @@ import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import pg from 'pg';
 import { QueryTypes } from 'sequelize';
 import sharp from 'sharp';
 import { SMTPServer } from 'smtp-server';
@@ -21,6 +20,7 @@ import { MAX_FAILURES } from '../../server/src/modules/auth/sign-in-throttle';
 import { readGuides } from '../../server/src/modules/library/knowledge-loader';
 import { enqueueMail } from '../../server/src/modules/mail/outbox';
 import { spawnServers, stopProcess, type SpawnedServers } from '../../scripts/spawn-servers';
+import { admin, createFreshDatabase, type FreshDatabase } from '../setup/fresh-database';
 import { startS3Fake, type S3Fake } from '../setup/s3-fake';
 import { createUser, FACTORY_PASSWORD, uniqueEmail } from '../factories/users';
 import { createThreadCase, newClientId } from '../factories/threads';
@@ -34,22 +34,13 @@ const MIGRATIONS_DIR = path.resolve(path.dirname(fileURLToPath(import.meta.url))
 let cluster: SpawnedServers | null = null;
 let s3: S3Fake | null = null;
 let smtp: SMTPServer | null = null;
-let freshDb: { name: string; url: string } | null = null;
+let freshDb: FreshDatabase | null = null;
 let uploadDir = '';
 let A = '';
 let B = '';
 const caught: { to: string; subject: string; heloName: string }[] = [];
 const open: Client[] = [];
 
-async function admin<T>(work: (client: pg.Client) => Promise<T>): Promise<T> {
-  const client = new pg.Client({ connectionString: process.env.PG_ADMIN_URL });
-  await client.connect();
-  try {
-    return await work(client);
-  } finally {
-    await client.end();
-  }
-}
 
 /** A catcher in the test: an SMTP server on loopback that writes down each mail and which process sent it (its EHLO name). */
 async function startCatcher(): Promise<{ server: SMTPServer; port: number }> {
@@ -77,11 +68,7 @@ async function startCatcher(): Promise<{ server: SMTPServer; port: number }> {
 }
 
 beforeAll(async () => {
-  const base = new URL(process.env.DATABASE_URL!);
-  const name = `sporewell_scale_${process.pid}`;
-  await admin((c) => c.query(`CREATE DATABASE ${name}`));
-  base.pathname = `/${name}`;
-  freshDb = { name, url: base.toString() };
+  freshDb = await createFreshDatabase('scale');
 
   s3 = await startS3Fake();
   const catcher = await startCatcher();
@@ -113,7 +100,7 @@ afterAll(async () => {
   await closeSequelize().catch(() => undefined);
   await new Promise<void>((resolve) => (smtp ? smtp.close(() => resolve()) : resolve()));
   await s3?.close();
-  if (freshDb) await admin((c) => c.query(`DROP DATABASE IF EXISTS ${freshDb!.name} WITH (FORCE)`));
+  await freshDb?.drop();
 }, 60_000);
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));

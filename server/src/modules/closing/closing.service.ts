@@ -21,14 +21,12 @@ import type { Transaction } from 'sequelize';
 import { STATUS_LABELS } from '../../../shared/case-status';
 import {
   LOST_AFTER_DAYS,
-  OUTCOME_LABELS,
   type ClosingState,
   type CloseCaseValues,
   type ConsentInput,
   type RecoveryReportValues,
 } from '../../../shared/closing-schemas';
 import type { ThreadMessage } from '../../../shared/socket-events';
-import { CAUSES, REMEDIES, labelOf } from '../../../shared/vocabulary';
 import type { AppContext } from '../../context';
 import { getSequelize } from '../../db/sequelize';
 import { AppError, conflict, forbidden, notFound } from '../../lib/errors';
@@ -38,6 +36,7 @@ import { publishFieldNote, unpublishFieldNote } from '../library/field-notes';
 import { invalidateRemedyRecords } from '../library/library.service';
 import { messagesRepository } from '../threads/messages.repository';
 import { writeSystemLine } from '../threads/messages.service';
+import { closedLine, recoveryReportLine } from '../threads/system-lines';
 import { publishChange, type ThreadChange } from '../threads/thread-events';
 import { setWaiting, urgencyNow } from '../threads/urgency-recompute';
 import { queueClosedMail } from './closing-mail';
@@ -175,12 +174,7 @@ export async function closeCase(ctx: AppContext, user: Express.User, caseId: num
       },
       t,
     );
-    const days = values.checkInDays.length === 1 ? `day ${values.checkInDays[0]}` : `days ${values.checkInDays.slice(0, -1).join(', ')} and ${values.checkInDays.at(-1)}`;
-    return {
-      line:
-        `${user.displayName} closed the case. Likely cause: ${labelOf(CAUSES, values.cause)}. Remedy: ${labelOf(REMEDIES, values.remedy)}. ` +
-        `The case is now “${STATUS_LABELS.watching}”; the grower will be asked how the batch does on ${days}.`,
-    };
+    return { line: closedLine(user.displayName, values) };
   });
   if (mailed) ctx.pokeMail();
   return state;
@@ -202,9 +196,8 @@ export async function fileRecoveryReport(ctx: AppContext, user: Express.User, ca
     await repo.dropUnsentCheckIns(caseId, t);
     await indexResolvedCase(caseId, t);
     if (report.consentToPublish) await publishFieldNote(caseId, t);
-    const shared = report.consentToPublish ? ' They agreed to share it, so it is now an anonymised field note in the Field Library.' : '';
     return {
-      line: `${user.displayName} filed the recovery report: ${OUTCOME_LABELS[report.outcome]}, ${report.stars} of 5 stars for the advice. The case is now “${STATUS_LABELS[status]}”.${shared}`,
+      line: recoveryReportLine(user.displayName, report),
       photoIds,
       after: invalidateRemedyRecords,
     };

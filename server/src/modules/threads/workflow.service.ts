@@ -17,6 +17,7 @@ import { AppError, conflict, forbidden, notFound } from '../../lib/errors';
 import { readableCaseOr404 } from '../cases/case-access';
 import { messagesRepository as repo, type ThreadCase } from './messages.repository';
 import { writeSystemLine } from './messages.service';
+import { claimedLine, handedOverLine, movedLine } from './system-lines';
 import type { ThreadChange } from './thread-events';
 import { setWaiting, urgencyAt } from './urgency-recompute';
 
@@ -60,7 +61,7 @@ export async function claimCase(user: Express.User, caseId: number): Promise<Wor
       throw conflict('already_claimed', `${holder ?? 'Another mentor'} already holds this case.`);
     }
     await assign(row, user.id, t);
-    return `${user.displayName} took this case.`;
+    return claimedLine(user.displayName);
   });
 }
 
@@ -79,7 +80,7 @@ export async function handOverCase(user: Express.User, caseId: number, targetId:
     }
     if (target.id === row.mentorId) throw conflict('no_change', `${target.displayName} already holds this case.`);
     await assign(row, target.id, t);
-    return `${user.displayName} handed this case to ${target.displayName}.`;
+    return handedOverLine(user.displayName, target.displayName);
   });
 }
 
@@ -107,8 +108,7 @@ export async function moveCase(user: Express.User, caseId: number, to: CaseStatu
     );
     if (to === 'over_to_grower' || to === 'withdrawn') await setWaiting(caseId, 'stop', t);
     else if (from === 'over_to_grower') await setWaiting(caseId, 'restart', t);
-    const line = `${user.displayName} moved the case from “${label(from)}” to “${label(to)}”.`;
-    return takes ? `${line} ${user.displayName} now holds it.` : line;
+    return movedLine(user.displayName, from, to, takes);
   });
 }
 
