@@ -148,6 +148,8 @@ const MATRIX: Record<string, Row> = {
   // A guide has no photos: everyone gets the same 404, nobody a 401/403.
   'GET /api/library/:slug/photos/:photoId': { path: (f) => `/api/library/${f.slug}/photos/1`, expect: [404, 404, 404, 404, 404] },
   'GET /api/library/:slug/photos/:photoId/thumb': { path: (f) => `/api/library/${f.slug}/photos/1/thumb`, expect: [404, 404, 404, 404, 404] },
+  // Who mentors, and how many cases each holds, is for the staff handing a case over.
+  'GET /api/mentors': { path: () => '/api/mentors', expect: STAFF_ONLY },
   'GET /api/mentors/:id': { path: (f) => `/api/mentors/${f.mentorId}`, expect: SIGNED_IN },
   'GET /api/mentor-applications': { path: () => '/api/mentor-applications', expect: SIGNED_IN },
   // Only growers apply to mentor.
