@@ -73,6 +73,21 @@ export interface LibraryEntry extends LibraryListItem {
   } | null;
 }
 
+/** GET /api/mentors (mentors and stewards only): who a case can be handed to. */
+export interface MentorChoice {
+  id: number;
+  displayName: string;
+  /** the open cases they hold now, so the load can be shared fairly */
+  openCases: number;
+}
+
+export interface MentorChoiceList {
+  items: MentorChoice[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
 /** GET /api/mentors/:id */
 export interface MentorProfile {
   id: number;

@@ -5,6 +5,7 @@ import { publishFieldNote } from '../../server/src/modules/library/field-notes';
 import { agent, makeTestApp, type TestApp } from '../setup/test-app';
 import { createCase, createResolvedCase, daysAgo } from '../factories/cases';
 import { signedIn } from '../factories/sign-in';
+import { createUser } from '../factories/users';
 
 let t: TestApp;
 beforeAll(() => {
@@ -92,5 +93,42 @@ describe('GET /api/mentors/:id', () => {
     expect((await grower.browser.get(`/api/mentors/${grower.user.id}`)).status).toBe(404);
     expect((await grower.browser.get('/api/mentors/abc')).status).toBe(404);
     expect((await grower.browser.get('/api/mentors/99999999')).status).toBe(404);
+  });
+});
+
+describe('GET /api/mentors', () => {
+  test('when a mentor asks, then the active mentors are listed with the open cases each holds; disabled ones, growers and stewards are not', async () => {
+    const asking = await signedIn(t.app, 'mentor');
+    const grower = await signedIn(t.app, 'grower');
+    const busy = await createUser({ role: 'mentor', displayName: 'Busy Mentor' });
+    const idle = await createUser({ role: 'mentor', displayName: 'Idle Mentor' });
+    const disabled = await createUser({ role: 'mentor', disabled: true });
+    const steward = await createUser({ role: 'steward' });
+    await createCase(grower.user.id, { status: 'in_conversation', mentorId: busy.id });
+    await createCase(grower.user.id, { status: 'over_to_grower', mentorId: busy.id });
+    // Over: not counted as open.
+    await createResolvedCase(grower.user.id, { mentorId: busy.id });
+
+    const res = await asking.browser.get('/api/mentors');
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ page: 1, total: res.body.items.length, pageSize: res.body.items.length });
+    const byId = new Map(res.body.items.map((m: { id: number }) => [m.id, m]));
+    expect(byId.get(busy.id)).toEqual({ id: busy.id, displayName: 'Busy Mentor', openCases: 2 });
+    expect(byId.get(idle.id)).toEqual({ id: idle.id, displayName: 'Idle Mentor', openCases: 0 });
+    expect(byId.has(asking.user.id)).toBe(true);
+    for (const absent of [disabled.id, steward.id, grower.user.id]) expect(byId.has(absent)).toBe(false);
+    // The least loaded first, so the list itself suggests who has room.
+    const loads = res.body.items.map((m: { openCases: number }) => m.openCases);
+    expect(loads).toEqual([...loads].sort((a, b) => a - b));
+    // Nothing beyond the three fields: no e-mail addresses.
+    expect(JSON.stringify(res.body)).not.toContain('@');
+  });
+
+  test('when a visitor or a grower asks, then 401 and 403; a steward gets the list', async () => {
+    expect((await agent(t.app).get('/api/mentors')).status).toBe(401);
+    const grower = await signedIn(t.app, 'grower');
+    expect((await grower.browser.get('/api/mentors')).status).toBe(403);
+    const steward = await signedIn(t.app, 'steward');
+    expect((await steward.browser.get('/api/mentors')).status).toBe(200);
   });
 });

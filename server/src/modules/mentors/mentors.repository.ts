@@ -1,7 +1,9 @@
 // What a mentor profile is made of: the person, their cases' counts and outcomes, how fast they
 // first replied on the cases they hold, and the field notes of those cases.
 import { QueryTypes } from 'sequelize';
+import { OPEN_STATUSES } from '../../../shared/case-status';
 import type { Outcome } from '../../../shared/closing-schemas';
+import type { MentorChoice } from '../../../shared/library-schemas';
 import type { OutcomeCounts } from '../../../shared/remedy-records';
 import { getSequelize } from '../../db/sequelize';
 
@@ -28,6 +30,22 @@ export interface RecentNoteRow {
 }
 
 export const mentorsRepository = {
+  /**
+   * The mentors a case can be handed to: role mentor and not disabled (what the hand-over
+   * accepts), with the open cases each holds; the least loaded first, then by name.
+   */
+  async listActive(): Promise<MentorChoice[]> {
+    return getSequelize().query<MentorChoice>(
+      `SELECT u.id, u.display_name AS "displayName", count(c.id)::int AS "openCases"
+         FROM users u
+         LEFT JOIN cases c ON c.mentor_id = u.id AND c.status = ANY($1::text[])
+        WHERE u.role = 'mentor' AND NOT u.disabled
+        GROUP BY u.id
+        ORDER BY "openCases", u.display_name, u.id`,
+      { bind: [[...OPEN_STATUSES]], type: QueryTypes.SELECT },
+    );
+  },
+
   /** Mentors and stewards (who also hold cases); a grower or a disabled account is not a mentor. */
   async findMentor(id: number): Promise<MentorRow | null> {
     const rows = await getSequelize().query<MentorRow>(
