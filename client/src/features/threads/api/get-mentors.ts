@@ -1,20 +1,18 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { MentorChoice, MentorChoiceList } from '@shared/library-schemas';
 import { api } from '../../../lib/api-client';
 import { threadKeys } from './thread-keys';
 
-export interface MentorChoice {
-  id: number;
-  displayName: string;
-}
+export type { MentorChoice };
 
-/** The mentors a case can be handed to. Only stewards may list users, so only they get this. */
+/** GET /api/mentors (mentors and stewards): the active mentors a case can be handed to, least loaded first. */
 export async function getMentors(signal?: AbortSignal): Promise<MentorChoice[]> {
-  const { items } = await api.get<{ items: Array<MentorChoice & { disabled?: boolean }> }>('/api/steward/users?role=mentor&pageSize=100', { signal });
-  return items.filter((m) => !m.disabled).map(({ id, displayName }) => ({ id, displayName }));
+  const { items } = await api.get<MentorChoiceList>('/api/mentors', { signal });
+  return items;
 }
 
-export const mentorsQueryOptions = () =>
-  queryOptions({ queryKey: threadKeys.mentors(), queryFn: ({ signal }) => getMentors(signal), staleTime: 5 * 60_000 });
+// Short-lived: the open-case counts are what someone choosing a mentor goes by.
+export const mentorsQueryOptions = () => queryOptions({ queryKey: threadKeys.mentors(), queryFn: ({ signal }) => getMentors(signal), staleTime: 30_000 });
 
 export function useMentorChoices(enabled: boolean) {
   return useQuery({ ...mentorsQueryOptions(), enabled });

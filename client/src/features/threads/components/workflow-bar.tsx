@@ -1,4 +1,4 @@
-import { useId, useState, type ReactNode } from 'react';
+import { useState, type ReactNode } from 'react';
 import type { CaseDetail } from '@shared/case-schemas';
 import { CASE_STATUSES, OPEN_STATUSES, STATUS_LABELS, canMove, type CaseStatus, type Role } from '@shared/case-status';
 import type { PublicUser } from '@shared/auth-schemas';
@@ -6,8 +6,8 @@ import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { useClaimCase } from '../api/claim-case';
 import { useHandOverCase } from '../api/hand-over-case';
-import { useMentorChoices } from '../api/get-mentors';
 import { useMoveCaseStatus } from '../api/move-case-status';
+import { HandOverForm } from './hand-over-form';
 
 /** The words on a move's button, by where it leads (and, for one, where it comes from). */
 function moveWords(from: CaseStatus, to: CaseStatus): string {
@@ -42,6 +42,8 @@ export function WorkflowBar({ detail, user, closeCaseAction }: WorkflowBarProps)
   const heldByOther = detail.mentor !== null && !heldByMe;
   const staff = role === 'mentor' || role === 'steward';
   const canClaim = staff && open && detail.mentor === null;
+  // The server's rule (workflow.service.ts): the mentor who holds the case, or a steward.
+  const canHandOver = open && (role === 'steward' || (role === 'mentor' && heldByMe));
 
   const moves = CASE_STATUSES.filter((to) => {
     if (!canMove(status, to, role)) return false;
@@ -66,7 +68,7 @@ export function WorkflowBar({ detail, user, closeCaseAction }: WorkflowBarProps)
       ? 'No mentor has taken this case yet.'
       : null;
 
-  const nothingToDo = !canClaim && forward.length === 0 && !canWithdraw && !(role === 'steward' && open) && !closeCaseAction;
+  const nothingToDo = !canClaim && forward.length === 0 && !canWithdraw && !canHandOver && !closeCaseAction;
 
   return (
     <div className="flex flex-col gap-3 rounded-soft border border-line bg-rice p-3 sm:p-4">
@@ -74,9 +76,6 @@ export function WorkflowBar({ detail, user, closeCaseAction }: WorkflowBarProps)
         {holder && <p className="font-bold">{holder}</p>}
         {role === 'grower' && status === 'over_to_grower' && (
           <p className="text-loam-soft">The mentor is waiting for your answer. Replying puts the case back in conversation.</p>
-        )}
-        {role === 'mentor' && heldByMe && open && (
-          <p className="text-base text-loam-soft">To hand it to another mentor, ask a steward.</p>
         )}
       </div>
       {!nothingToDo && (
@@ -92,8 +91,8 @@ export function WorkflowBar({ detail, user, closeCaseAction }: WorkflowBarProps)
             </Button>
           ))}
           {closeCaseAction}
-          {role === 'steward' && open && (
-            <HandOver
+          {canHandOver && (
+            <HandOverForm
               currentMentorId={detail.mentor?.id ?? null}
               growerId={detail.grower.id}
               busy={busy}
@@ -134,68 +133,5 @@ export function WorkflowBar({ detail, user, closeCaseAction }: WorkflowBarProps)
         </Alert>
       )}
     </div>
-  );
-}
-
-/** Stewards choose the mentor; only they can list mentors. */
-function HandOver({
-  currentMentorId,
-  growerId,
-  busy,
-  onHandOver,
-}: {
-  currentMentorId: number | null;
-  growerId: number;
-  busy: boolean;
-  onHandOver: (mentorId: number) => void;
-}) {
-  const id = useId();
-  const [open, setOpen] = useState(false);
-  const [chosen, setChosen] = useState('');
-  const mentors = useMentorChoices(open);
-  const choices = (mentors.data ?? []).filter((m) => m.id !== currentMentorId && m.id !== growerId);
-
-  if (!open) {
-    return (
-      <Button variant="secondary" onClick={() => setOpen(true)} disabled={busy}>
-        {currentMentorId ? 'Hand over' : 'Give to a mentor'}
-      </Button>
-    );
-  }
-  return (
-    <form
-      className="flex flex-wrap items-end gap-2"
-      onSubmit={(event) => {
-        event.preventDefault();
-        if (chosen) onHandOver(Number(chosen));
-      }}
-    >
-      <div className="flex flex-col gap-1">
-        <label htmlFor={id} className="font-bold">
-          Hand to
-        </label>
-        <select
-          id={id}
-          value={chosen}
-          onChange={(event) => setChosen(event.target.value)}
-          className="min-h-11 rounded-soft border-2 border-loam-soft bg-rice px-3 text-base"
-          disabled={mentors.isPending}
-        >
-          <option value="">{mentors.isPending ? 'Loading mentors…' : 'Choose a mentor'}</option>
-          {choices.map((m) => (
-            <option key={m.id} value={m.id}>
-              {m.displayName}
-            </option>
-          ))}
-        </select>
-      </div>
-      <Button type="submit" disabled={!chosen || busy}>
-        Hand over
-      </Button>
-      <Button variant="quiet" onClick={() => setOpen(false)}>
-        Cancel
-      </Button>
-      {mentors.error && <p className="w-full font-semibold text-ember">{mentors.error.message}</p>}
-    </form>
   );
 }
