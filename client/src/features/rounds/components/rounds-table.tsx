@@ -1,6 +1,6 @@
 // The rounds as a table on wide screens and as cards on a phone. Both are drawn from the same
 // table model and the same cell definitions, so a column reads the same in either layout.
-import { useMemo } from 'react';
+import { createContext, useContext, useMemo } from 'react';
 import { Link } from 'react-router';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type Row } from '@tanstack/react-table';
 import type { CaseListItem } from '@shared/case-schemas';
@@ -36,21 +36,44 @@ function Symptoms({ symptoms }: { symptoms: CaseListItem['symptoms'] }) {
   );
 }
 
-function ClaimButton({ item, onClaim, claimingId }: { item: CaseListItem; onClaim: (id: number) => void; claimingId: number | null }) {
+// The claim in flight reaches the buttons through context, not through the column definitions:
+// new definitions are new cell components, and React would remount every cell (and drop the
+// focus inside one) each time a claim starts or ends.
+const ClaimState = createContext<{ claimingId: number | null; onClaim: (id: number) => void }>({ claimingId: null, onClaim: () => {} });
+
+function ClaimButton({ item }: { item: CaseListItem }) {
+  const { claimingId, onClaim } = useContext(ClaimState);
   if (item.mentor || !OPEN_STATUSES.includes(item.status)) return null;
   const busy = claimingId === item.id;
   return (
-    <Button variant="secondary" className="px-3!" disabled={claimingId !== null} onClick={() => onClaim(item.id)}>
+    <Button variant="secondary" className="px-3!" disabled={claimingId !== null} onClick={() => onClaim(item.id)} data-claim-button>
       {busy ? 'Claiming…' : 'Claim'}
       <span className="sr-only"> “{item.title}”</span>
     </Button>
   );
 }
 
+/**
+ * A claimed case's button goes away (and is disabled while the claim is under way), which would
+ * drop keyboard focus to the start of the page; it goes to the case just taken instead, unless
+ * the person has already moved on to something else.
+ */
+function focusClaimedCase(caseId: number): void {
+  const active = document.activeElement;
+  if (active && active !== document.body && !active.hasAttribute('data-claim-button')) return;
+  // Both layouts are in the page; only one is shown.
+  const links = document.querySelectorAll<HTMLElement>(`[data-rounds-case="${caseId}"]`);
+  [...links].find((link) => link.offsetParent !== null)?.focus();
+}
+
 export function RoundsTable({ items, sort, myUserId }: { items: CaseListItem[]; sort: RoundsSort; myUserId: number }) {
   const claim = useClaimCase();
   const claimingId = claim.isPending ? (claim.variables ?? null) : null;
   const { mutate: claimCase } = claim;
+  const claimState = useMemo(
+    () => ({ claimingId, onClaim: (id: number) => claimCase(id, { onSuccess: () => focusClaimedCase(id) }) }),
+    [claimingId, claimCase],
+  );
 
   const columns = useMemo(
     () => [
@@ -62,7 +85,7 @@ export function RoundsTable({ items, sort, myUserId }: { items: CaseListItem[]; 
         header: 'Case',
         cell: ({ row }) => (
           <div className="min-w-0">
-            <Link to={`/cases/${row.original.id}`} className="font-extrabold">
+            <Link to={`/cases/${row.original.id}`} className="font-extrabold" data-rounds-case={row.original.id}>
               {row.original.title}
             </Link>
             <p className="text-sm text-loam-soft">
@@ -104,10 +127,10 @@ export function RoundsTable({ items, sort, myUserId }: { items: CaseListItem[]; 
       column.display({
         id: 'actions',
         header: () => <span className="sr-only">Actions</span>,
-        cell: ({ row }) => <ClaimButton item={row.original} onClaim={(id) => claimCase(id)} claimingId={claimingId} />,
+        cell: ({ row }) => <ClaimButton item={row.original} />,
       }),
     ],
-    [myUserId, claimCase, claimingId],
+    [myUserId],
   );
 
   const table = useReactTable({
@@ -126,7 +149,7 @@ export function RoundsTable({ items, sort, myUserId }: { items: CaseListItem[]; 
   };
 
   return (
-    <>
+    <ClaimState value={claimState}>
       {claim.error && (
         <p role="alert" className="mb-3 rounded-soft border-l-8 border-ember bg-ember-mist px-4 py-3 font-semibold text-ember">
           Could not claim that case: {claim.error.message}
@@ -199,6 +222,6 @@ export function RoundsTable({ items, sort, myUserId }: { items: CaseListItem[]; 
           </li>
         ))}
       </ul>
-    </>
+    </ClaimState>
   );
 }
