@@ -51,7 +51,15 @@ export function CloseCaseForm({ caseId, onCancel }: { caseId: number; onCancel: 
       <FormAlert title="The case was not closed" message={failure} />
       <div className="grid gap-5 md:grid-cols-2">
         <div className="flex flex-col gap-3">
-          <SelectField label="Likely cause" placeholder="Choose the likely cause" options={toOptions(CAUSES)} error={errors.cause?.message} {...form.register('cause')} />
+          {/* Opened from a button that goes away with it: the form takes focus at its first field. */}
+          <SelectField
+            label="Likely cause"
+            placeholder="Choose the likely cause"
+            options={toOptions(CAUSES)}
+            error={errors.cause?.message}
+            autoFocus
+            {...form.register('cause')}
+          />
           <TextAreaField label="About the cause (optional)" rows={3} error={errors.causeNotes?.message} {...form.register('causeNotes')} />
         </div>
         <div className="flex flex-col gap-3">

@@ -1,4 +1,4 @@
-import { useId, useState } from 'react';
+import { useEffect, useId, useRef, useState } from 'react';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ClosingState } from '@shared/closing-schemas';
 import { Alert } from '../../../components/ui/alert';
@@ -19,9 +19,26 @@ export function CloseCasePanel({ caseId }: { caseId: number }) {
   const headingId = useId();
   // Still true once the form's own closing went through, which is when to say so.
   const [open, setOpen] = useState(false);
+  const openButtonRef = useRef<HTMLButtonElement>(null);
+  const doneRef = useRef<HTMLDivElement>(null);
+  // "Not yet" takes the form away: focus goes back to the button that opened it.
+  const [backToButton, setBackToButton] = useState(false);
   const state = closing.data;
+  const closed = !!state && state.closedAt !== null && state.status !== 'withdrawn';
+  const justClosed = open && closed;
+
+  useEffect(() => {
+    if (!backToButton) return;
+    openButtonRef.current?.focus();
+    setBackToButton(false);
+  }, [backToButton]);
+  // The form and its button are gone once the case is closed; focus goes to the news instead of
+  // falling back to the top of the page.
+  useEffect(() => {
+    if (justClosed) doneRef.current?.focus();
+  }, [justClosed]);
+
   if (!state) return null;
-  const closed = state.closedAt !== null && state.status !== 'withdrawn';
   if (!state.can.close && !closed) return null;
 
   return (
@@ -29,21 +46,27 @@ export function CloseCasePanel({ caseId }: { caseId: number }) {
       <h2 id={headingId} className="text-2xl font-extrabold">
         {closed ? 'Closing' : 'Close this case'}
       </h2>
-      {open && closed && (
-        <Alert tone="success" title="Closed: the case is now watching">
+      {justClosed && (
+        <Alert ref={doneRef} tabIndex={-1} tone="success" title="Closed: the case is now watching">
           The grower has an e-mail with your summary and a link to tell us how the batch does.
         </Alert>
       )}
       {!closed && !open && (
         <div className="flex flex-col gap-3">
           <p>When there is a likely cause and a remedy to try, record them here. The grower then tells us how the batch does.</p>
-          <Button className="self-start" onClick={() => setOpen(true)}>
+          <Button ref={openButtonRef} className="self-start" onClick={() => setOpen(true)}>
             Close the case…
           </Button>
         </div>
       )}
       {!closed && open && (
-        <CloseCaseForm caseId={caseId} onCancel={() => setOpen(false)} />
+        <CloseCaseForm
+          caseId={caseId}
+          onCancel={() => {
+            setOpen(false);
+            setBackToButton(true);
+          }}
+        />
       )}
       {closed && <ClosingRecord state={state} />}
       {state.can.closeAsLost && <CloseAsLost state={state} />}

@@ -57,6 +57,9 @@ export function RecoveryReportForm({ state }: { state: ClosingState }) {
     report.mutate(
       { ...values, consentPhotos: values.consentToPublish && values.consentPhotos, photoIds },
       {
+        // The page turns into its thank-you; focus goes to the top of the page's content (the
+        // skip link's target) rather than being lost with the button that sent the report.
+        onSuccess: () => document.getElementById('main')?.focus(),
         onError: (error) => {
           if (!applyFieldErrors(error, form.setError, ['outcome', 'stars', 'comment'])) setFailure(error.message);
         },

@@ -1,4 +1,4 @@
-import { useState, type ReactNode } from 'react';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
 import type { CaseDetail } from '@shared/case-schemas';
 import { CASE_STATUSES, OPEN_STATUSES, STATUS_LABELS, canMove, type CaseStatus, type Role } from '@shared/case-status';
 import type { PublicUser } from '@shared/auth-schemas';
@@ -33,6 +33,17 @@ export function WorkflowBar({ detail, user, closeCaseAction }: WorkflowBarProps)
   const move = useMoveCaseStatus();
   const handOver = useHandOverCase();
   const [confirmWithdraw, setConfirmWithdraw] = useState(false);
+  // Buttons here give way to others (claim, withdraw and its question); focus follows to what
+  // replaced them instead of dropping to the top of the page.
+  const [focusNext, setFocusNext] = useState<'holder' | 'question' | 'withdraw' | null>(null);
+  const holderRef = useRef<HTMLParagraphElement>(null);
+  const keepOpenRef = useRef<HTMLButtonElement>(null);
+  const withdrawRef = useRef<HTMLButtonElement>(null);
+  useEffect(() => {
+    if (!focusNext) return;
+    ({ holder: holderRef, question: keepOpenRef, withdraw: withdrawRef })[focusNext].current?.focus();
+    setFocusNext(null);
+  }, [focusNext]);
 
   // Someone who opened the case acts on it as its grower, whatever else they are (as the server does).
   const role: Role = detail.grower.id === user.id ? 'grower' : user.role;
@@ -73,7 +84,11 @@ export function WorkflowBar({ detail, user, closeCaseAction }: WorkflowBarProps)
   return (
     <div className="flex flex-col gap-3 rounded-soft border border-line bg-rice p-3 sm:p-4">
       <div className="flex flex-wrap items-center gap-x-4 gap-y-2">
-        {holder && <p className="font-bold">{holder}</p>}
+        {holder && (
+          <p ref={holderRef} tabIndex={-1} className="font-bold">
+            {holder}
+          </p>
+        )}
         {role === 'grower' && status === 'over_to_grower' && (
           <p className="text-loam-soft">The mentor is waiting for your answer. Replying puts the case back in conversation.</p>
         )}
@@ -81,7 +96,7 @@ export function WorkflowBar({ detail, user, closeCaseAction }: WorkflowBarProps)
       {!nothingToDo && (
         <div className="flex flex-wrap items-end gap-2">
           {canClaim && (
-            <Button onClick={() => claim.mutate(detail.id)} disabled={busy}>
+            <Button onClick={() => claim.mutate(detail.id, { onSuccess: () => setFocusNext('holder') })} disabled={busy}>
               {claim.isPending ? 'Claiming…' : 'Claim this case'}
             </Button>
           )}
@@ -100,7 +115,16 @@ export function WorkflowBar({ detail, user, closeCaseAction }: WorkflowBarProps)
             />
           )}
           {canWithdraw && !confirmWithdraw && (
-            <Button variant="quiet" className="px-3!" onClick={() => setConfirmWithdraw(true)} disabled={busy}>
+            <Button
+              ref={withdrawRef}
+              variant="quiet"
+              className="px-3!"
+              onClick={() => {
+                setConfirmWithdraw(true);
+                setFocusNext('question');
+              }}
+              disabled={busy}
+            >
               {moveWords(status, 'withdrawn')}
             </Button>
           )}
@@ -121,7 +145,14 @@ export function WorkflowBar({ detail, user, closeCaseAction }: WorkflowBarProps)
             >
               {move.isPending ? 'Withdrawing…' : 'Yes, withdraw'}
             </Button>
-            <Button variant="secondary" onClick={() => setConfirmWithdraw(false)}>
+            <Button
+              ref={keepOpenRef}
+              variant="secondary"
+              onClick={() => {
+                setConfirmWithdraw(false);
+                setFocusNext('withdraw');
+              }}
+            >
               Keep it open
             </Button>
           </div>
