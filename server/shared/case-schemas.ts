@@ -4,7 +4,7 @@
 import { z } from 'zod';
 import { MAX_BATCH_GRAMS, SUGAR_TYPE_IDS, type BatchCheckResult, type BatchRisk, type SugarTypeId } from './batch-check';
 import { CASE_STATUSES, type CaseStatus } from './case-status';
-import { STAGE_IDS, SYMPTOM_IDS, type CauseId, type RemedyId, type StageId, type SymptomId } from './vocabulary';
+import { CAUSE_IDS, REMEDY_IDS, STAGE_IDS, SYMPTOM_IDS, type CauseId, type RemedyId, type StageId, type SymptomId } from './vocabulary';
 import { massUnitSchema, toGrams, type MassUnit } from './units';
 import type { UrgencyLevel } from './urgency';
 
@@ -341,18 +341,50 @@ export type SimilarDraft = z.output<typeof similarDraftSchema>;
 /** GET /api/cases/:id/similar?limit= */
 export const similarQuerySchema = z.object({ limit: limitField });
 
-export interface SimilarItem {
-  id: number;
-  title: string;
-  stage: StageId;
-  symptoms: SymptomId[];
-  cause: CauseId | null;
-  remedy: RemedyId | null;
-  outcome: 'recovered' | 'partly' | 'lost' | null;
-  status: 'recovered' | 'lost';
-  published: boolean;
+const similarShared = {
+  stage: stageField,
+  symptoms: z.array(symptomField),
+  cause: z.enum(CAUSE_IDS).nullable(),
+  remedy: z.enum(REMEDY_IDS).nullable(),
+  outcome: z.enum(['recovered', 'partly', 'lost']).nullable(),
   /** 0–1, higher is closer */
-  score: number;
+  score: z.number().min(0).max(1),
   /** plain sentences, strongest first, e.g. "Same stage (IMO2)", "Shares 2 symptoms: …" */
-  reasons: string[];
-}
+  reasons: z.array(z.string()),
+};
+
+/** What mentors and stewards see: the resolved case itself, published or not. */
+export const similarCaseItemSchema = z.object({
+  kind: z.literal('case'),
+  id: z.number().int(),
+  title: z.string(),
+  status: z.enum(['recovered', 'lost']),
+  published: z.boolean(),
+  ...similarShared,
+});
+
+/**
+ * What a grower sees: never another grower's case (its words, its id), only the anonymised
+ * field note made from it with consent, read from the library's copy and linked by its slug.
+ */
+export const similarNoteItemSchema = z.object({
+  kind: z.literal('note'),
+  slug: z.string().min(1),
+  title: z.string(),
+  summary: z.string(),
+  ...similarShared,
+});
+
+export const similarItemSchema = z.discriminatedUnion('kind', [similarCaseItemSchema, similarNoteItemSchema]);
+
+/** POST /api/cases/similar and GET /api/cases/:id/similar answer this. */
+export const similarAnswerSchema = z.object({
+  items: z.array(similarItemSchema),
+  /** the words that counted, and what a misspelt one was read as (for growers, only words read as typed) */
+  terms: z.array(z.object({ word: z.string(), term: z.string() })),
+});
+
+export type SimilarCaseItem = z.infer<typeof similarCaseItemSchema>;
+export type SimilarNoteItem = z.infer<typeof similarNoteItemSchema>;
+export type SimilarItem = z.infer<typeof similarItemSchema>;
+export type SimilarAnswer = z.infer<typeof similarAnswerSchema>;

@@ -5,6 +5,8 @@ import { getSequelize } from '../../server/src/db/sequelize';
 import { SYMPTOM_IDS } from '../../server/shared/vocabulary';
 import { indexResolvedCase, queryWords } from '../../server/src/modules/cases/search-index';
 import { SYMPTOM_BIT_ORDER, nearSymptomSets, symptomMask, symptomsOfMask } from '../../server/src/modules/cases/similar.service';
+import { similarAnswerSchema } from '../../server/shared/case-schemas';
+import { publishFieldNote } from '../../server/src/modules/library/field-notes';
 import { makeTestApp, type TestApp } from '../setup/test-app';
 import { JSON_HEADERS, signedIn } from '../factories/sign-in';
 import { createCase, createResolvedCase } from '../factories/cases';
@@ -76,7 +78,7 @@ describe('batches like this', () => {
     expect(item.reasons.join(' ')).toMatch(/Mentions .*cinnamon/);
   });
 
-  test('when a case asks for batches like it, then it never lists itself, nor open cases; the grower sees only published ones', async () => {
+  test('when a case asks for batches like it, then it never lists itself, nor open cases; the grower sees only published ones, as field notes', async () => {
     const grower = await signedIn(t.app);
     const mentor = await signedIn(t.app, 'mentor');
     const word = nonce();
@@ -84,16 +86,20 @@ describe('batches like this', () => {
     const own = await createCase(grower.user.id, { stage: 'IMO3', symptoms: ['colour-white'], description });
     const openOther = await createCase(mentor.user.id, { stage: 'IMO3', symptoms: ['colour-white'], description });
     const published = await createResolvedCase(mentor.user.id, { stage: 'IMO3', symptoms: ['colour-white'], description, published: true });
+    const { slug } = await publishFieldNote(published);
     const unpublished = await createResolvedCase(mentor.user.id, { stage: 'IMO3', symptoms: ['colour-white'], description, published: false, outcome: 'lost' });
 
     const forGrower = await grower.browser.get(`/api/cases/${own}/similar?limit=20`);
     expect(forGrower.status).toBe(200);
-    expect(ids(forGrower.body)).toContain(published);
-    expect(ids(forGrower.body)).not.toContain(unpublished);
-    expect(ids(forGrower.body)).not.toContain(own);
-    expect(ids(forGrower.body)).not.toContain(openOther);
+    const answer = similarAnswerSchema.parse(forGrower.body);
+    expect(answer.items.every((i) => i.kind === 'note')).toBe(true);
+    expect(answer.items.map((i) => (i.kind === 'note' ? i.slug : null))).toContain(slug);
+    // Neither the unpublished case nor the open ones, under any name.
+    expect(JSON.stringify(forGrower.body)).not.toMatch(new RegExp(`"id":(${own}|${openOther}|${unpublished})\\b`));
+    expect(forGrower.body.items.filter((i: { slug: string }) => i.slug.endsWith(`-${unpublished}`) || i.slug.endsWith(`-${openOther}`))).toEqual([]);
 
     const forMentor = await mentor.browser.get(`/api/cases/${own}/similar?limit=20`);
+    expect(similarAnswerSchema.parse(forMentor.body).items.every((i) => i.kind === 'case')).toBe(true);
     expect(ids(forMentor.body)).toEqual(expect.arrayContaining([published, unpublished]));
     const lost = forMentor.body.items.find((i: { id: number }) => i.id === unpublished);
     expect(lost).toMatchObject({ status: 'lost', outcome: 'lost', published: false });
@@ -101,6 +107,70 @@ describe('batches like this', () => {
     const ofResolved = await mentor.browser.get(`/api/cases/${published}/similar?limit=20`);
     expect(ids(ofResolved.body)).not.toContain(published);
     expect(ids(ofResolved.body)).toContain(unpublished);
+  });
+
+  test("when grower B asks for batches like a draft that matches grower A's published case, then B gets only its anonymised field note: never A's title, name, words or case id", async () => {
+    const word = nonce();
+    const a = await signedIn(t.app, 'grower', `Ottoline ${word}`);
+    const b = await signedIn(t.app);
+    const mentor = await signedIn(t.app, 'mentor');
+    const rawTitle = `Ottoline ${word}'s FFJ crock smelled of ${word} vinegar`;
+    const caseOfA = await createResolvedCase(a.user.id, {
+      stage: 'FFJ',
+      symptoms: ['smell-sour', 'bubbling'],
+      title: rawTitle,
+      description: `Ottoline ${word} here: my plum crock fizzed and smelled of vinegar by day four. Mail me at ottoline@example.test.`,
+      summary: 'Too little sugar for ripe plums; sugar added to equal weights and the smell turned sweet again.',
+      published: true,
+    });
+    const note = await publishFieldNote(caseOfA);
+    // A published case whose note is not written (yet) is not shown to growers at all.
+    const noteless = await createResolvedCase(mentor.user.id, { stage: 'FFJ', symptoms: ['smell-sour', 'bubbling'], description: `${word} plums fizzing`, published: true });
+
+    const draft = { stage: 'FFJ', symptoms: ['smell-sour', 'bubbling'], description: `My ${word} plum crock is fizzing and smells of vinegar`, limit: 20 };
+    const res = await b.browser.post('/api/cases/similar').set(JSON_HEADERS).send(draft);
+    expect(res.status).toBe(200);
+    const answer = similarAnswerSchema.parse(res.body);
+    const mine = answer.items.find((i) => i.kind === 'note' && i.slug === note.slug);
+    expect(mine).toMatchObject({ kind: 'note', stage: 'FFJ', cause: 'too-little-sugar', remedy: 'add-sugar', outcome: 'recovered' });
+    expect(mine && 'id' in mine).toBe(false);
+    const [entry] = await getSequelize().query<{ title: string; summary: string }>(`SELECT title, summary FROM library_entries WHERE slug = :slug`, {
+      replacements: { slug: note.slug },
+      type: QueryTypes.SELECT,
+    });
+    expect(mine).toMatchObject({ title: entry.title, summary: entry.summary });
+    const body = JSON.stringify(res.body);
+    expect(body).not.toContain(rawTitle);
+    expect(body).not.toContain('Ottoline');
+    expect(body).not.toContain('ottoline@example.test');
+    expect(body).not.toContain('/cases/');
+    expect(answer.items.some((i) => i.kind === 'note' && i.slug.endsWith(`-${noteless}`))).toBe(false);
+    for (const item of res.body.items) expect(Object.keys(item)).not.toContain('id');
+
+    // The same case on B's own case page.
+    const own = await createCase(b.user.id, { stage: 'FFJ', symptoms: ['smell-sour', 'bubbling'], description: draft.description });
+    const onPage = await b.browser.get(`/api/cases/${own}/similar?limit=20`);
+    expect(onPage.body.items.map((i: { slug?: string }) => i.slug)).toContain(note.slug);
+    expect(JSON.stringify(onPage.body)).not.toContain('Ottoline');
+
+    // Mentors keep seeing the case itself.
+    const forMentor = await mentor.browser.post('/api/cases/similar').set(JSON_HEADERS).send(draft);
+    const theCase = forMentor.body.items.find((i: { id?: number }) => i.id === caseOfA);
+    expect(theCase).toMatchObject({ kind: 'case', title: rawTitle, published: true });
+    expect(ids(forMentor.body)).toContain(noteless);
+  });
+
+  test('when a grower misspells a word, then the reasons name it as they typed it, and no reading of it from other cases is sent', async () => {
+    const { user } = await signedIn(t.app, 'mentor');
+    const grower = await signedIn(t.app);
+    const word = nonce();
+    const target = await createResolvedCase(user.id, { stage: 'OHN', symptoms: ['smell-sour'], title: `Garlic ${word} extract went cloudy`, description: 'The garlic extract turned cloudy.', published: true });
+    await publishFieldNote(target);
+    const misspelt = `${word.slice(0, 3)}${word.slice(4)}`;
+    const res = await grower.browser.post('/api/cases/similar').set(JSON_HEADERS).send({ stage: 'OHN', description: `garlic ${misspelt} cloudy`, limit: 20 });
+    const item = res.body.items.find((i: { slug: string }) => i.slug.endsWith(`-${target}`));
+    expect(item.reasons.join(' ')).toMatch(new RegExp(`Mentions .*${misspelt}`));
+    expect(JSON.stringify(res.body.terms)).not.toContain(`"${word}"`);
   });
 
   test('when no limit is given, then at most five come back; over twenty is refused', async () => {

@@ -1,8 +1,9 @@
-// Cases: open, list (the rounds and a grower's own), read, batches like this, and private
-// photos. Mounted at /api/cases after the threads router (messages, claim, status, hand-over).
+// Cases: open, list (the rounds and a grower's own), read, batches like this (growers get field
+// notes, staff the cases: similar.service.ts), and private photos. Mounted at /api/cases after
+// the threads router (messages, claim, status, hand-over).
 import { pipeline } from 'node:stream/promises';
 import { Router, type Request, type Response } from 'express';
-import { caseListQuerySchema, openCaseSchema, similarDraftSchema, similarQuerySchema } from '../../../shared/case-schemas';
+import { openCaseSchema, similarDraftSchema, similarQuerySchema } from '../../../shared/case-schemas';
 import { toGrams } from '../../../shared/units';
 import type { AppContext } from '../../context';
 import { notFound } from '../../lib/errors';
@@ -12,15 +13,13 @@ import { readableCaseOr404 } from './case-access';
 import { casesRepository } from './cases.repository';
 import { casesService } from './cases.service';
 import { openPhoto, uploadPhotos } from './photos.service';
-import { findSimilarCases } from './similar.service';
+import { listCasesHandler } from './rounds-page';
+import { findSimilarFor } from './similar.service';
 
 export function casesRouter(ctx: AppContext, store: PhotoStore = createPhotoStore(ctx.config)): Router {
   const router = Router();
 
-  router.get('/', requireSignedIn, async (req, res) => {
-    const query = parseOr400(caseListQuerySchema, req.query, 'Some of the filters need fixing.');
-    res.json(await casesService.list(requireUser(req), query));
-  });
+  router.get('/', requireSignedIn, listCasesHandler(ctx));
 
   router.post('/', requireSignedIn, async (req, res) => {
     const input = parseOr400(openCaseSchema, req.body);
@@ -32,13 +31,12 @@ export function casesRouter(ctx: AppContext, store: PhotoStore = createPhotoStor
     const draft = parseOr400(similarDraftSchema, req.body);
     const ratio = draft.numbers ? toGrams(draft.numbers.sugar.value, draft.numbers.sugar.unit) / toGrams(draft.numbers.culture.value, draft.numbers.culture.unit) : null;
     res.json(
-      await findSimilarCases({
+      await findSimilarFor(user, {
         stage: draft.stage ?? null,
         symptoms: draft.symptoms,
         text: `${draft.title}\n${draft.description}`,
         ratio,
         limit: draft.limit,
-        publishedOnly: user.role === 'grower',
       }),
     );
   });
@@ -54,14 +52,13 @@ export function casesRouter(ctx: AppContext, store: PhotoStore = createPhotoStor
     const row = await casesRepository.findDetail(id);
     if (!row) throw notFound('That case');
     res.json(
-      await findSimilarCases({
+      await findSimilarFor(requireUser(req), {
         stage: row.stage,
         symptoms: row.symptoms,
         text: `${row.title}\n${row.description}`,
         ratio: row.sugarRatio,
         excludeId: id,
         limit,
-        publishedOnly: req.user!.role === 'grower',
       }),
     );
   });

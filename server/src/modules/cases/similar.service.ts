@@ -36,7 +36,7 @@ import { QueryTypes } from 'sequelize';
 import { getSequelize } from '../../db/sequelize';
 import { SYMPTOM_BIT_ORDER_0101 } from '../../db/migrations/0101-similar-structure';
 import { preparedQuery } from './prepared-query';
-import type { SimilarItem } from '../../../shared/case-schemas';
+import type { SimilarAnswer, SimilarCaseItem, SimilarNoteItem } from '../../../shared/case-schemas';
 import { SYMPTOMS, labelOf, type StageId, type SymptomId } from '../../../shared/vocabulary';
 import { queryWords } from './search-index';
 
@@ -361,6 +361,8 @@ export function rankCandidates(
   request: Pick<SimilarRequest, 'stage' | 'symptoms' | 'ratio' | 'limit'>,
   units: readonly Unit[],
   candidates: readonly Candidate[],
+  /** how a matched word is named in the reasons: the known word it was read as, or the draft's word as typed */
+  wordsAs: 'reading' | 'typed' = 'reading',
 ): Scored[] {
   const W = SIMILAR_WEIGHTS;
   const alternatives = flattenAlternatives(units);
@@ -379,7 +381,7 @@ export function rankCandidates(
     const mentioned: { term: string; weight: number }[] = [];
     for (const [unit, hit] of best) {
       textPart += units[unit].idf * hit.credit;
-      if (hit.credit >= 0.5) mentioned.push({ term: hit.term, weight: units[unit].idf * hit.credit });
+      if (hit.credit >= 0.5) mentioned.push({ term: wordsAs === 'typed' ? units[unit].word : hit.term, weight: units[unit].idf * hit.credit });
     }
     const text = idfTotal > 0 ? textPart / idfTotal : 0;
     // in the draft's order, as the grower named them
@@ -414,29 +416,78 @@ export function rankCandidates(
   return scored.sort((a, b) => b.score - a.score || b.candidate.id - a.candidate.id).slice(0, request.limit);
 }
 
-export interface SimilarAnswer {
-  items: SimilarItem[];
+export interface SimilarCaseAnswer {
+  items: SimilarCaseItem[];
   /** the words that counted, and what a misspelt one was read as */
   terms: { word: string; term: string }[];
 }
 
-type Shown = Omit<SimilarItem, 'score' | 'reasons' | 'stage'>;
+type ShownCase = Omit<SimilarCaseItem, 'kind' | 'score' | 'reasons' | 'stage'>;
 
-export async function findSimilarCases(request: SimilarRequest): Promise<SimilarAnswer> {
+async function rankSimilar(request: SimilarRequest, wordsAs: 'reading' | 'typed'): Promise<{ units: Unit[]; ranked: Scored[] }> {
   const resolved = await resolvedCaseCount();
   const units = await readUnits(request.text, resolved);
   const candidates = await findCandidates(request, units);
-  const ranked = rankCandidates(request, units, candidates);
+  return { units, ranked: rankCandidates(request, units, candidates, wordsAs) };
+}
+
+const rounded = (score: number) => Math.round(score * 1000) / 1000;
+
+/** Mentors' and stewards' view (and the benchmark's): the resolved cases themselves. */
+export async function findSimilarCases(request: SimilarRequest): Promise<SimilarCaseAnswer> {
+  const { units, ranked } = await rankSimilar(request, 'reading');
   const shown = ranked.length
-    ? await preparedQuery<Shown>(
+    ? await preparedQuery<ShownCase>(
         `SELECT id, title, symptoms, cause, remedy, outcome, status, published FROM cases WHERE id = ANY($ids::int[])`,
         { ids: ranked.map((r) => r.candidate.id) },
       )
     : [];
   const byId = new Map(shown.map((row) => [row.id, row]));
-  const items = ranked.flatMap((r): SimilarItem[] => {
+  const items = ranked.flatMap((r): SimilarCaseItem[] => {
     const row = byId.get(r.candidate.id);
-    return row ? [{ ...row, stage: r.candidate.stage, score: Math.round(r.score * 1000) / 1000, reasons: r.reasons }] : [];
+    return row ? [{ kind: 'case', ...row, stage: r.candidate.stage, score: rounded(r.score), reasons: r.reasons }] : [];
   });
   return { items, terms: units.map((u) => ({ word: u.word, term: u.term })) };
+}
+
+interface NoteRow {
+  caseId: number;
+  slug: string;
+  title: string;
+  summary: string;
+  symptoms: SimilarNoteItem['symptoms'];
+  cause: SimilarNoteItem['cause'];
+  remedy: SimilarNoteItem['remedy'];
+  outcome: SimilarNoteItem['outcome'];
+}
+
+/**
+ * A grower's view: the same ranking over published cases only, each shown as its field note,
+ * read from the library's anonymised copy; no case id, title or text of another grower leaves
+ * the server. The words named in the reasons and `terms` are the grower's own as typed: a
+ * reading of a misspelt word comes from every resolved case's words, published or not.
+ * (A published case whose note is not written yet, e.g. just after start-up, is left out.)
+ */
+export async function findSimilarNotes(request: Omit<SimilarRequest, 'publishedOnly'>): Promise<SimilarAnswer> {
+  const { units, ranked } = await rankSimilar({ ...request, publishedOnly: true }, 'typed');
+  const notes = ranked.length
+    ? await preparedQuery<NoteRow>(
+        `SELECT case_id AS "caseId", slug, title, summary, symptoms, cause, remedy, outcome
+           FROM library_entries WHERE kind = 'note' AND case_id = ANY($ids::int[])`,
+        { ids: ranked.map((r) => r.candidate.id) },
+      )
+    : [];
+  const byCase = new Map(notes.map((row) => [row.caseId, row]));
+  const items = ranked.flatMap((r): SimilarNoteItem[] => {
+    const note = byCase.get(r.candidate.id);
+    if (!note) return [];
+    const { caseId: _caseId, ...shown } = note;
+    return [{ kind: 'note', ...shown, stage: r.candidate.stage, score: rounded(r.score), reasons: r.reasons }];
+  });
+  return { items, terms: units.filter((u) => u.term === u.word).map((u) => ({ word: u.word, term: u.term })) };
+}
+
+/** Who sees what: growers the field notes, mentors and stewards the cases. */
+export function findSimilarFor(user: Pick<Express.User, 'role'>, request: Omit<SimilarRequest, 'publishedOnly'>): Promise<SimilarAnswer> {
+  return user.role === 'grower' ? findSimilarNotes(request) : findSimilarCases({ ...request, publishedOnly: false });
 }

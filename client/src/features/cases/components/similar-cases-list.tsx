@@ -4,7 +4,6 @@ import type { SimilarItem } from '@shared/case-schemas';
 import { CAUSES, REMEDIES, SYMPTOMS, labelOf } from '@shared/vocabulary';
 import { Spinner } from '../../../components/ui/spinner';
 import { cx } from '../../../components/ui/cx';
-import { useUser } from '../../auth/api/get-me';
 
 export const OUTCOME_LABELS: Record<NonNullable<SimilarItem['outcome']>, string> = {
   recovered: 'Recovered',
@@ -20,7 +19,9 @@ const OUTCOME_TONES: Record<NonNullable<SimilarItem['outcome']>, string> = {
 
 /**
  * "Batches like this": resolved cases close to this one, each with what was wrong, what was
- * done and how it ended, and why Sporewell thinks it is alike.
+ * done and how it ended, and why Sporewell thinks it is alike. Mentors and stewards get the
+ * cases themselves; a grower gets the anonymised field notes made from other growers' cases
+ * (the server never sends a grower another grower's case), linked into the Field Library.
  */
 export function SimilarCasesList({
   items,
@@ -39,9 +40,6 @@ export function SimilarCasesList({
 }) {
   const headingId = useId();
   const Heading = headingLevel === 2 ? 'h2' : 'h3';
-  const { data: user } = useUser();
-  // Another grower's case is private; mentors and stewards may open any case.
-  const mayOpen = user?.role === 'mentor' || user?.role === 'steward';
 
   return (
     <section aria-labelledby={headingId} aria-busy={state === 'loading' || state === 'refreshing'} className={cx('flex flex-col gap-3', className)}>
@@ -60,8 +58,8 @@ export function SimilarCasesList({
       {items && items.length > 0 && state !== 'idle' && state !== 'loading' && (
         <ol className="flex flex-col gap-3" aria-label="Resolved cases like this one, closest first">
           {items.map((item) => (
-            <li key={item.id} className="rounded-soft border border-line bg-rice p-4">
-              <SimilarCaseItem item={item} mayOpen={mayOpen} heading={headingLevel === 2 ? 'h3' : 'h4'} />
+            <li key={item.kind === 'note' ? `note-${item.slug}` : `case-${item.id}`} className="rounded-soft border border-line bg-rice p-4">
+              <SimilarCaseItem item={item} heading={headingLevel === 2 ? 'h3' : 'h4'} />
             </li>
           ))}
         </ol>
@@ -70,13 +68,13 @@ export function SimilarCasesList({
   );
 }
 
-function SimilarCaseItem({ item, mayOpen, heading: Heading }: { item: SimilarItem; mayOpen: boolean; heading: 'h3' | 'h4' }) {
-  const outcome = item.outcome ?? (item.status === 'lost' ? 'lost' : 'recovered');
+function SimilarCaseItem({ item, heading: Heading }: { item: SimilarItem; heading: 'h3' | 'h4' }) {
+  const outcome = item.outcome ?? (item.kind === 'case' && item.status === 'lost' ? 'lost' : 'recovered');
   return (
     <article className="flex flex-col gap-2">
       <div className="flex flex-wrap items-start justify-between gap-2">
         <Heading className="font-extrabold leading-snug">
-          {mayOpen ? <Link to={`/cases/${item.id}`}>{item.title}</Link> : item.title}
+          {item.kind === 'note' ? <Link to={`/library/${item.slug}`}>{item.title}</Link> : <Link to={`/cases/${item.id}`}>{item.title}</Link>}
         </Heading>
         <span className={cx('rounded-full border px-2.5 py-0.5 text-sm font-bold whitespace-nowrap', OUTCOME_TONES[outcome])}>
           {OUTCOME_LABELS[outcome]}
@@ -85,7 +83,9 @@ function SimilarCaseItem({ item, mayOpen, heading: Heading }: { item: SimilarIte
       <p className="text-sm text-loam-soft">
         <span className="font-bold text-loam">{item.stage}</span>
         {item.symptoms.length > 0 && <> · {item.symptoms.map((s) => labelOf(SYMPTOMS, s).toLowerCase()).join(', ')}</>}
+        {item.kind === 'note' && <> · field note</>}
       </p>
+      {item.kind === 'note' && item.summary && <p className="line-clamp-3">{item.summary}</p>}
       {(item.cause || item.remedy) && (
         <p>
           <span className="sr-only">Cause: </span>
