@@ -81,4 +81,7 @@ export interface ServerToClientEvents {
   'typing': (payload: { caseId: number; userId: number; displayName: string; typing: boolean }) => void;
   'case:updated': (payload: CaseUpdatedPayload) => void;
   'unread': (payload: { caseId: number }) => void;
+  /** The person's role changed or their account was disabled: ask GET /api/auth/me again. The
+   * socket is dropped right after (its rooms were for the old role). */
+  'account:changed': () => void;
 }

@@ -128,7 +128,13 @@ async function dropEndedSessions(io: ThreadServer, userId: number): Promise<void
 async function dropChangedUser(io: ThreadServer, userId: number): Promise<void> {
   const user = await usersRepository.findById(userId);
   const sockets = await io.in(userRoom(userId)).fetchSockets();
-  for (const s of sockets) if (!user || user.disabled || user.role !== s.data.role) s.disconnect(true);
+  for (const s of sockets) {
+    if (user && !user.disabled && user.role === s.data.role) continue;
+    // Said first, so the client asks who it is now (its pages follow the new role) rather than
+    // only learning of it from the dropped connection.
+    s.emit('account:changed');
+    s.disconnect(true);
+  }
 }
 
 function threadPublisher(io: ThreadServer): ThreadPublisher {
