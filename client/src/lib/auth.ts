@@ -58,17 +58,33 @@ export async function requireUser(
   roles?: readonly Role[],
 ): Promise<PublicUser> {
   const user = await loadUser(queryClient);
-  if (!user) {
-    const url = new URL(request.url);
-    throw redirect(signInPath(url.pathname + url.search));
-  }
+  if (!user) throw signInFrom(request);
   if (roles && !roles.includes(user.role)) {
-    throw data({ kind: 'role', allowed: roles, role: user.role } satisfies RoleRefusal, {
+    // The remembered answer may predate a role change (a steward approved this person while
+    // the tab was open): ask once more before refusing. Only refusals cost the extra request.
+    const fresh = await refetchUser(queryClient, user);
+    if (!fresh) throw signInFrom(request);
+    if (roles.includes(fresh.role)) return fresh;
+    throw data({ kind: 'role', allowed: roles, role: fresh.role } satisfies RoleRefusal, {
       status: 403,
       statusText: 'Not for your role',
     });
   }
   return user;
+}
+
+function signInFrom(request: Request) {
+  const url = new URL(request.url);
+  return redirect(signInPath(url.pathname + url.search));
+}
+
+/** Who the server says is signed in now; `fallback` when it cannot be asked. */
+export async function refetchUser(queryClient: QueryClient, fallback: PublicUser | null): Promise<PublicUser | null> {
+  try {
+    return await queryClient.fetchQuery({ ...meQueryOptions(), staleTime: 0 });
+  } catch {
+    return fallback;
+  }
 }
 
 /** Loader for sign-in and join: someone already signed in goes straight on to `next`. */

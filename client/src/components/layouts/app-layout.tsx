@@ -2,6 +2,7 @@ import { useEffect, useId, useRef, useState } from 'react';
 import { Link, Outlet, useLocation, useNavigation } from 'react-router';
 import type { PublicUser } from '@shared/auth-schemas';
 import { useUser } from '../../features/auth/api/get-me';
+import { useAccountChanges } from '../../features/auth/hooks/use-account-changes';
 import { UnreadBadge } from '../../features/threads/components/unread-badge';
 import { Alert } from '../ui/alert';
 import { cx } from '../ui/cx';
@@ -13,6 +14,7 @@ import { UserMenu } from './user-menu';
 export function AppLayout() {
   const me = useUser();
   const user = me.data ?? null;
+  useAccountChanges();
   const location = useLocation();
   const navigation = useNavigation();
   const mainRef = useRef<HTMLElement>(null);

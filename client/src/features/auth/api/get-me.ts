@@ -13,11 +13,18 @@ export async function getMe(signal?: AbortSignal): Promise<PublicUser | null> {
   }
 }
 
+/** Coming back to the tab asks again once the answer is this old, whatever staleTime says. */
+export const ME_FOCUS_RECHECK_MS = 30_000;
+
 export const meQueryOptions = () =>
   queryOptions({
     queryKey: authKeys.me(),
     queryFn: ({ signal }) => getMe(signal),
     staleTime: 5 * 60_000,
+    // A role can change while the tab sits in the background (a steward approves an
+    // application to mentor): one small request when the person comes back puts the right
+    // pages in the header. The socket's account:changed and any 403 ask at once as well.
+    refetchOnWindowFocus: (query) => (Date.now() - query.state.dataUpdatedAt > ME_FOCUS_RECHECK_MS ? 'always' : false),
     // Route loaders wait on this; when the server is down we show the visitor's view at once
     // instead of holding the page through retries.
     retry: false,
