@@ -11,7 +11,8 @@ export default defineConfig({
   root: 'client',
   plugins: [react(), tailwindcss()],
   resolve: { alias: { '@shared': shared } },
-  build: { outDir: '../dist/client', emptyOutDir: true, sourcemap: false },
+  // The manifest tells the server which chunks a page needs, to name them in that page's HTML.
+  build: { outDir: '../dist/client', emptyOutDir: true, sourcemap: false, manifest: true },
   server: {
     port: Number(process.env.VITE_PORT ?? 5173),
     host: '127.0.0.1',

@@ -4,8 +4,9 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import compression from 'compression';
-import express, { type Express, type NextFunction, type Request, type Response } from 'express';
+import express, { type Express, type NextFunction, type Request, type RequestHandler, type Response } from 'express';
 import type { AppContext } from './context';
+import { builtFile, pageChunks, renderShell, type Manifest, type ShellData } from './lib/client-shell';
 import { errorHandler } from './lib/error-handler';
 import { AppError, notFound } from './lib/errors';
 import { crossSiteGuard, jsonOnly, securityHeaders } from './lib/security';
@@ -17,6 +18,7 @@ import { mentorsRouter } from './modules/mentors/mentors.router';
 import { mentorApplicationsRouter } from './modules/mentor-applications/mentor-applications.router';
 import { moderationRouter } from './modules/moderation/moderation.router';
 import { threadsRouter } from './modules/threads/threads.router';
+import { toPublicUser } from './modules/auth/auth.service';
 import { configurePassport } from './modules/auth/passport';
 import { healthRouter } from './modules/health/health.router';
 import { stewardRouter } from './modules/steward/steward.router';
@@ -44,11 +46,15 @@ export function buildApp(ctx: AppContext): Express {
   api.use(crossSiteGuard(config.publicUrl));
   api.use(jsonOnly());
   api.use(express.json({ limit: '100kb', strict: true }));
-  api.use(ctx.sessions.middleware);
-  api.use(absoluteSessionTimeout(config.SESSION_ABSOLUTE_HOURS));
   const passport = configurePassport();
-  api.use(passport.initialize());
-  api.use(passport.session());
+  // Who is signed in: for the API, and for the HTML shell, which carries the person to the client.
+  const session: RequestHandler[] = [
+    ctx.sessions.middleware,
+    absoluteSessionTimeout(config.SESSION_ABSOLUTE_HOURS),
+    passport.initialize(),
+    passport.session(),
+  ];
+  api.use(session);
 
   api.use('/health', healthRouter());
   api.use('/vocabulary', vocabularyRouter());
@@ -64,7 +70,7 @@ export function buildApp(ctx: AppContext): Express {
   api.use((req, _res, next) => next(new AppError(404, 'not_found', `There is no ${req.method} ${req.baseUrl}${req.path}.`)));
   app.use('/api', api);
 
-  serveClient(app);
+  serveClient(app, session);
   app.use((_req, _res, next) => next(notFound('That page')));
   app.use(errorHandler);
   return app;
@@ -86,8 +92,10 @@ function absoluteSessionTimeout(hours: number) {
   };
 }
 
-function serveClient(app: Express): void {
-  const index = path.join(CLIENT_DIST, 'index.html');
+function serveClient(app: Express, session: RequestHandler[]): void {
+  const template = builtFile(path.join(CLIENT_DIST, 'index.html'), (text) => text);
+  // Written by the build (vite.config.ts `build.manifest`); dot-folders are never served.
+  const manifest = builtFile(path.join(CLIENT_DIST, '.vite/manifest.json'), (text) => JSON.parse(text) as Manifest);
   app.use(
     '/assets',
     express.static(path.join(CLIENT_DIST, 'assets'), { immutable: true, maxAge: '1y', index: false, fallthrough: true }),
@@ -96,10 +104,31 @@ function serveClient(app: Express): void {
   // The SPA's own routes (e.g. /cases/42) get the client on a deep link.
   app.get('/{*splat}', (req, res, next) => {
     if (req.path.startsWith('/api/') || req.path.startsWith('/uploads/') || req.path.startsWith('/assets/') || path.extname(req.path)) return next();
-    if (!fs.existsSync(index)) {
+    const html = template();
+    if (html === null) {
       res.status(503).type('text/plain').send('The client is not built yet. Run `npm run build`.');
       return;
     }
-    res.set('Cache-Control', 'no-cache').sendFile(index);
+    void readShellData(req, res, session).then((data) => {
+      // The page names the person, so no cache may keep it (nor show it after a sign-out).
+      res.set('Cache-Control', 'no-store').type('html').send(renderShell(html, data, pageChunks(manifest(), req.path, data)));
+    });
+  });
+}
+
+/** Runs the session middleware for one page request; a session that cannot be read (the
+ * database away) gives undefined, and the client then asks the API itself. */
+function readShellData(req: Request, res: Response, session: RequestHandler[]): Promise<ShellData | undefined> {
+  return new Promise((resolve) => {
+    const step = (i: number) => (error?: unknown) => {
+      if (error) return resolve(undefined);
+      if (i === session.length) return resolve({ user: req.user ? toPublicUser(req.user) : null });
+      try {
+        void session[i](req, res, step(i + 1));
+      } catch {
+        resolve(undefined);
+      }
+    };
+    step(0)();
   });
 }
