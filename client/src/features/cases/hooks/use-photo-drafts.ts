@@ -1,5 +1,4 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
-import imageCompression from 'browser-image-compression';
 // The library's worker loads the library itself by URL; serve our own copy instead of its CDN.
 import compressionLibUrl from 'browser-image-compression/dist/browser-image-compression.js?url';
 import { isApiError } from '../../../lib/api-client';
@@ -28,6 +27,8 @@ const ACCEPTED = /^image\/(jpeg|png|webp|heic|heif)$/;
 
 async function prepare(file: File): Promise<Blob> {
   try {
+    // Loaded when the first photo is chosen, not with the page: most visits to a case add none.
+    const { default: imageCompression } = await import('browser-image-compression');
     return await imageCompression(file, {
       ...DOWNSCALE,
       useWebWorker: true,
