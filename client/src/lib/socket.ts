@@ -1,9 +1,11 @@
 // The one socket.io connection of the signed-in person. It lives as long as the session: made
 // when someone signs in, dropped at sign-out, and remade when a different person signs in on
 // the same tab (the handshake carries the session cookie, so a socket never outlives its user).
+// socket.io-client itself is fetched only once someone is signed in, after the page has shown:
+// visitors never need it, and nothing live is on screen before the first paint.
 import { useEffect, useSyncExternalStore } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
-import { io, type Socket } from 'socket.io-client';
+import type { Socket } from 'socket.io-client';
 import type { ClientToServerEvents, ServerToClientEvents } from '@shared/socket-events';
 import { authKeys } from '../features/auth/api/auth-keys';
 import { useUser } from '../features/auth/api/get-me';
@@ -42,7 +44,11 @@ function onBrowserOffline(): void {
 
 function onBrowserOnline(): void {
   const socket = snapshot.socket;
-  if (!socket) return;
+  // socket.io-client may have failed to load while the network was away.
+  if (!socket) {
+    if (snapshot.userId !== null) bindSocketToUser(snapshot.userId);
+    return;
+  }
   if (socket.connected) publish({ state: 'online' });
   // Skip the rest of socket.io's back-off: the network is back now.
   else socket.connect();
@@ -53,7 +59,10 @@ if (typeof window !== 'undefined') {
   window.addEventListener('online', onBrowserOnline);
 }
 
-function createSocket(): LiveSocket {
+let socketIo: Promise<typeof import('socket.io-client')> | null = null;
+const loadSocketIo = () => (socketIo ??= import('socket.io-client'));
+
+function createSocket(io: (typeof import('socket.io-client'))['io']): LiveSocket {
   const socket: LiveSocket = io({
     path: '/socket.io',
     // Websocket first: the fan-out adapter across processes needs it or sticky sessions.
@@ -68,19 +77,40 @@ function createSocket(): LiveSocket {
   return socket;
 }
 
-/** Makes sure the socket belongs to `userId` (null: nobody signed in, no socket). */
+/** The user whose socket is being made (socket.io-client still on its way). */
+let makingFor: number | null = null;
+
+/** Makes sure the socket belongs to `userId` (null: nobody signed in, no socket). The socket
+ * appears in the snapshot once socket.io-client has loaded; until then this returns null. */
 export function bindSocketToUser(userId: number | null): LiveSocket | null {
-  if (snapshot.userId === userId && (snapshot.socket || userId === null)) return snapshot.socket;
+  if (snapshot.userId === userId && (snapshot.socket || userId === null || makingFor === userId)) return snapshot.socket;
   snapshot.socket?.removeAllListeners();
   snapshot.socket?.disconnect();
+  makingFor = null;
   if (userId === null) {
     publish({ socket: null, userId: null, state: 'connecting' });
     return null;
   }
-  const socket = createSocket();
-  publish({ socket, userId, state: 'connecting' });
-  socket.connect();
-  return socket;
+  publish({ socket: null, userId, state: 'connecting' });
+  makingFor = userId;
+  loadSocketIo().then(
+    ({ io }) => {
+      // Someone else signed in (or out) while it loaded: that call made its own.
+      if (makingFor !== userId) return;
+      makingFor = null;
+      const socket = createSocket(io);
+      publish({ socket });
+      socket.connect();
+    },
+    () => {
+      if (makingFor !== userId) return;
+      makingFor = null;
+      // The next bind (e.g. the session recheck, or going back online) tries again.
+      socketIo = null;
+      publish({ state: 'offline' });
+    },
+  );
+  return null;
 }
 
 export function getSocket(): LiveSocket | null {
@@ -109,9 +139,13 @@ export function useLiveSocket(): LiveSocket | null {
   const queryClient = useQueryClient();
   const userId = useUser().data?.id ?? null;
   const current = useSyncExternalStore(subscribe, getSnapshot, getSnapshot);
+  const socket = current.userId === userId ? current.socket : null;
 
   useEffect(() => {
-    const socket = bindSocketToUser(userId);
+    bindSocketToUser(userId);
+  }, [userId]);
+
+  useEffect(() => {
     if (!socket || watched.has(socket)) return;
     watched.add(socket);
     // The server drops a socket whose session ended (signed out in another tab, account
@@ -137,9 +171,9 @@ export function useLiveSocket(): LiveSocket | null {
     // loses its listeners in bindSocketToUser.
     socket.on('disconnect', onDisconnect);
     socket.on('connect_error', onRefused);
-  }, [userId, queryClient]);
+  }, [socket, userId, queryClient]);
 
-  return current.userId === userId ? current.socket : null;
+  return socket;
 }
 
 export function useConnectionState(): ConnectionState {
