@@ -18,7 +18,9 @@
 //   sides are compared on the fuse.js score alone, before the small track-record nudge.
 //
 // BENCH_NOTES changes the size; BENCH_CAPS=200,100 measures other candidate counts side by side;
-// BENCH_DIR=<folder> keeps the (stopped) cluster and the full ranking there between runs.
+// BENCH_DIR=<folder> keeps the (stopped) cluster and the full ranking there between runs;
+// BENCH_ROW_BUDGET and BENCH_PER_READING try other LIBRARY_TUNING values; BENCH_NO_ANCHOR=1
+// skips the bare full-text anchor (for tuning runs only: the table needs it).
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -344,8 +346,11 @@ async function main(): Promise<number> {
       `Field Library search at ${NOTES.toLocaleString('en')} field notes + ${guides.length} guides, ${set.length} queries (${set.filter((q) => q.misspelt).length} misspelt), ${ROUNDS} timed rounds`,
     );
     // The anchor QUALITY.md measures against, in this same run: a bare PostgreSQL full-text top 10.
+    if (process.env.BENCH_ROW_BUDGET) LIBRARY_TUNING.rowBudget = Number(process.env.BENCH_ROW_BUDGET);
+    if (process.env.BENCH_PER_READING) LIBRARY_TUNING.perReading = Number(process.env.BENCH_PER_READING);
+    say(`tuning: ${JSON.stringify(LIBRARY_TUNING)}`);
     const anchor: number[] = [];
-    for (let round = 0; round < ROUNDS; round++) {
+    for (let round = 0; round < (process.env.BENCH_NO_ANCHOR ? 0 : ROUNDS); round++) {
       for (const q of set) {
         const started = performance.now();
         await getSequelize().query(
@@ -357,7 +362,7 @@ async function main(): Promise<number> {
       }
     }
     anchor.sort((a, b) => a - b);
-    console.log(`anchor: bare PostgreSQL full-text top 10 (QUALITY.md: 0.6–16 ms)   p50 ${ms(quantile(anchor, 0.5))}   p95 ${ms(quantile(anchor, 0.95))}`);
+    if (anchor.length) console.log(`anchor: bare PostgreSQL full-text top 10 (QUALITY.md: 0.6–16 ms)   p50 ${ms(quantile(anchor, 0.5))}   p95 ${ms(quantile(anchor, 0.95))}`);
     let ok = false;
     for (const cap of caps) {
       LIBRARY_TUNING.candidates = cap;

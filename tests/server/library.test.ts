@@ -7,7 +7,8 @@ import { wilsonInterval } from '../../server/shared/track-record';
 import { getSequelize } from '../../server/src/db/sequelize';
 import { publishFieldNote } from '../../server/src/modules/library/field-notes';
 import { KNOWLEDGE_DIR, loadKnowledge } from '../../server/src/modules/library/knowledge-loader';
-import { invalidateRemedyRecords } from '../../server/src/modules/library/library.service';
+import { LIBRARY_TUNING, invalidateRemedyRecords } from '../../server/src/modules/library/library.service';
+import { unpublishFieldNote } from '../../server/src/modules/library/field-notes';
 import { agent, makeTestApp, type TestApp } from '../setup/test-app';
 import { createResolvedCase, type CaseOptions } from '../factories/cases';
 import { signedIn } from '../factories/sign-in';
@@ -188,6 +189,53 @@ describe('GET /api/library search', () => {
     expect((await agent(t.app).get('/api/library').query({ stage: 'IMO9' })).status).toBe(400);
     expect((await agent(t.app).get('/api/library').query({ kind: 'ticket' })).status).toBe(400);
     expect((await agent(t.app).get('/api/library').query({ page: -1 })).status).toBe(400);
+  });
+});
+
+describe('common words: candidates from the postings (migration 0304)', () => {
+  const postingsOf = (slug: string) =>
+    getSequelize().query<{ term: string; impact: number }>(
+      `SELECT p.term, p.impact FROM library_postings p JOIN library_entries e ON e.id = p.entry_id WHERE e.slug = $1 ORDER BY p.term`,
+      { bind: [slug], type: QueryTypes.SELECT },
+    );
+
+  test('when a note is published, then each word of its title, summary and labels has a posting, a word in the short title weighing more than one only in the long summary', async () => {
+    const rows = await postingsOf(bubblingSour);
+    const impact = new Map(rows.map((r) => [r.term, r.impact]));
+    expect(impact.get('nettle')).toBeGreaterThan(0); // title only
+    expect(impact.get('porch')).toBeGreaterThan(0); // summary only
+    expect(impact.get('nettle')!).toBeGreaterThan(impact.get('porch')!);
+    // "bubbling" is in the title, the summary and the labels: the three add up.
+    expect(impact.get('bubbling')!).toBeGreaterThan(impact.get('nettle')!);
+    expect(rows.every((r) => r.impact > 0)).toBe(true);
+  });
+
+  test('when every word counts as common (row budget 0), then the postings alone still put the bubbling, sour note first', async () => {
+    const budget = LIBRARY_TUNING.rowBudget;
+    LIBRARY_TUNING.rowBudget = 0;
+    try {
+      const res = await agent(t.app).get('/api/library').query({ q: 'bubbels soure nettle', kind: 'note' });
+      expect(res.status).toBe(200);
+      expect(res.body.items[0].slug).toBe(bubblingSour);
+      const filtered = await agent(t.app).get('/api/library').query({ q: 'bubbling', stage: 'IMO2', kind: 'note', pageSize: 50 });
+      expect(filtered.body.items.map((i: { slug: string }) => i.slug)).toContain(bubblingOnly);
+      expect(filtered.body.items.every((i: { stages: string[] }) => i.stages.includes('IMO2'))).toBe(true);
+    } finally {
+      LIBRARY_TUNING.rowBudget = budget;
+    }
+  });
+
+  test('when a note is withdrawn, then its postings go with it', async () => {
+    const caseId = await createResolvedCase(growerId, { published: true, stage: 'LAB', title: 'Whey layer gone pink', summary: 'Pink whey poured off.' });
+    const { slug } = await publishFieldNote(caseId);
+    expect((await postingsOf(slug)).map((r) => r.term)).toContain('pink');
+    await unpublishFieldNote(caseId);
+    const [{ n }] = await getSequelize().query<{ n: number }>(
+      `SELECT count(*)::int AS n FROM library_postings p WHERE NOT EXISTS (SELECT 1 FROM library_entries e WHERE e.id = p.entry_id)`,
+      { type: QueryTypes.SELECT },
+    );
+    expect(n).toBe(0);
+    expect(await postingsOf(slug)).toEqual([]);
   });
 });
 

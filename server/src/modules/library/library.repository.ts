@@ -120,26 +120,84 @@ export const libraryRepository = {
     );
   },
 
-  /** PostgreSQL narrows: entries whose title, summary or labels contain any of `narrowing` (GIN
-   * on search_head), ranked the way fuse.js will score them (rankSql), best first. */
+  /** PostgreSQL narrows: entries whose title, summary or labels contain any of `narrowing`, or
+   * a word of every one of its `all` groups (GIN on search_head), ranked the way fuse.js will
+   * score them (rankSql), best first. */
   async matchHead(
     words: readonly RankWord[],
-    narrowing: readonly string[],
+    narrowing: readonly string[] | { all: ReadonlyArray<readonly string[]> },
     filters: EntryFilters,
     cap: number,
     exclude: readonly number[],
   ): Promise<RankedEntryRow[]> {
-    if (!narrowing.length || !words.length || cap <= 0) return [];
-    // websearch_to_tsquery never fails on odd input; the words are a-z only anyway.
-    const bind: unknown[] = [narrowing.join(' or '), cap, [...exclude]];
+    const groups = Array.isArray(narrowing) ? [narrowing as readonly string[]] : (narrowing as { all: ReadonlyArray<readonly string[]> }).all;
+    if (!groups.length || groups.some((g) => !g.length) || !words.length || cap <= 0) return [];
+    // Any word of a group, every group: (a or b) and (c or d). The words are a–z only, so
+    // spelling the query out for to_tsquery is safe; a stop word drops out of it.
+    const match = groups.map((g) => `(${g.join(' | ')})`).join(' & ');
+    if (/[^a-z()|& ]/.test(match)) throw new RangeError('search words must be a-z');
+    const bind: unknown[] = [match, cap, [...exclude]];
     const rank = rankSql(words, bind);
     const where = filterSql(filters, bind);
     return getSequelize().query<RankedEntryRow>(
       `SELECT ${LIST_COLUMNS}, (${rank.expression})::float8 AS rank
-         FROM library_entries e, websearch_to_tsquery('english', $1) AS q(query), ${rank.from}
+         FROM library_entries e, to_tsquery('english', $1) AS q(query), ${rank.from}
         WHERE e.search_head @@ q.query AND e.id <> ALL($3::int[]) ${where}
         ORDER BY rank DESC, e.id DESC
         LIMIT $2`,
+      { bind, type: QueryTypes.SELECT },
+    );
+  },
+
+  /**
+   * PostgreSQL narrows by postings (migration 0304): for each reading of each word, its
+   * `perReading` strongest entries (an index-only range scan, filters checked on the index),
+   * scored the way `matchHead` ranks: per field the best reading found there, fields added up,
+   * words added up by idf. A word whose lists leave an entry out gains nothing from it here:
+   * this picks candidates, fuse.js then scores them exactly.
+   */
+  async matchPostings(
+    words: readonly RankWord[],
+    filters: EntryFilters,
+    cap: number,
+    perReading: number,
+    exclude: readonly number[],
+  ): Promise<RankedEntryRow[]> {
+    const readings = words.flatMap((word, index) => word.readings.map((r) => ({ ...r, word: index + 1 })));
+    if (!readings.length || cap <= 0) return [];
+    const bind: unknown[] = [
+      readings.map((r) => r.term),
+      readings.map((r) => r.word),
+      readings.map((r) => r.lnScore),
+      words.map((w) => w.idf),
+      cap,
+      perReading,
+      [...exclude],
+    ];
+    // A posting carries the entry's kind, stages and symptoms under the same names, so the
+    // filters apply to it as to an entry (alias `e`).
+    const where = filterSql(filters, bind);
+    return getSequelize().query<RankedEntryRow>(
+      `WITH hits AS (
+         SELECT r.word, p.entry_id,
+                min(r.ln * p.title_impact) + min(r.ln * p.summary_impact) + min(r.ln * p.labels_impact) AS exponent
+           FROM unnest($1::text[], $2::int[], $3::float8[]) AS r(term, word, ln)
+           CROSS JOIN LATERAL (
+             SELECT e.entry_id, e.title_impact, e.summary_impact, e.labels_impact FROM library_postings e
+              WHERE e.term = r.term AND e.entry_id <> ALL($7::int[]) ${where}
+              ORDER BY e.impact DESC, e.entry_id DESC
+              LIMIT $6) p
+          GROUP BY r.word, p.entry_id
+       ), scored AS (
+         SELECT h.entry_id, sum(i.idf * (1 - exp(h.exponent))) AS rank
+           FROM hits h JOIN unnest($4::float8[]) WITH ORDINALITY AS i(idf, word) ON i.word = h.word
+          GROUP BY h.entry_id
+          ORDER BY rank DESC, h.entry_id DESC
+          LIMIT $5
+       )
+       SELECT ${LIST_COLUMNS}, s.rank::float8 AS rank
+         FROM scored s JOIN library_entries e ON e.id = s.entry_id
+        ORDER BY s.rank DESC, e.id DESC`,
       { bind, type: QueryTypes.SELECT },
     );
   },

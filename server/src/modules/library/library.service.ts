@@ -10,11 +10,14 @@
 //    this" (cases/similar.service.ts), but not its single best correction at ≥ 0.4: "bubbels" is
 //    only 0.33 like "bubbles", and since the readings are OR-ed and fuse.js ranks afterwards,
 //    a looser, wider reading costs little here.
-// 3. PostgreSQL full-text search (GIN) takes at most LIBRARY_TUNING.candidates entries whose title, summary or
-//    labels contain any of those words (the fields fuse.js ranks on), best text rank first, with
-//    the stage/symptom/kind filters applied. Rare words go first, as many as together appear in
-//    about LIBRARY_TUNING.rowBudget cases; the common ones fill what room is left; then entries
-//    that name a word only in their body. When that finds almost nothing, titles with a trigram-similar word.
+// 3. PostgreSQL narrows to at most LIBRARY_TUNING.candidates entries, with the stage/symptom/kind
+//    filters applied, on the fields fuse.js ranks on (title, summary, labels). Rare words first
+//    (as many as together appear in about LIBRARY_TUNING.rowBudget entries): every entry holding
+//    one, found by full-text search (GIN) and ranked in SQL the way fuse.js will score it. Common
+//    words fill what room is left from their postings (migration 0304): the entries each scores
+//    best in, strongest first, never all of their tens of thousands of matches — after the
+//    entries holding every common word, which outscore them. Then entries that
+//    name a word only in their body; when that finds almost nothing, titles with a trigram-similar word.
 // 4. fuse.js scores the candidates against the words as typed, each word weighted by the rarity
 //    of what it was read as (library-ranking.ts).
 // 5. Best first: the fuse.js score, nudged by how well the entry's remedy holds up (the lower
@@ -31,9 +34,11 @@ import { libraryRepository as repo, type EntryFilters, type EntryRow, type Ranke
 
 /** How many candidates PostgreSQL hands to fuse.js (scripts/bench-library.ts measures the choice). */
 export const LIBRARY_TUNING = {
-  candidates: 200,
+  candidates: 100,
   /** the rare words that narrow first may together be in about this many cases */
-  rowBudget: 4000,
+  rowBudget: 1500,
+  /** a common word's strongest postings read per reading of it */
+  perReading: 200,
 };
 const KNOWN_WORDS_PER_WORD = 3;
 /** Known words containing a typed one, per word (fuse.js matches inside longer words). */
@@ -124,20 +129,27 @@ export async function narrow(q: string, filters: EntryFilters): Promise<Narrowed
   const groups = rankWords
     .map((w) => ({ terms: w.readings.map((r) => r.term), uses: w.readings.reduce((sum, r) => sum + (usesOf.get(r.term) ?? 1), 0) }))
     .sort((a, b) => a.uses - b.uses);
-  const first: string[] = [];
-  const rest: string[] = [];
+  const rare: string[] = [];
+  const common: string[][] = [];
   let rows = 0;
   for (const group of groups) {
-    if (first.length === 0 || rows + group.uses <= LIBRARY_TUNING.rowBudget) {
-      first.push(...group.terms);
+    if (rows + group.uses <= LIBRARY_TUNING.rowBudget) {
+      rare.push(...group.terms);
       rows += group.uses;
-    } else rest.push(...group.terms);
+    } else common.push(group.terms);
   }
-  const allWords = [...new Set([...first, ...rest])];
+  const allWords = [...new Set(rankWords.flatMap((w) => w.readings.map((r) => r.term)))];
   const cap = LIBRARY_TUNING.candidates;
-  let candidates = await repo.matchHead(rankWords, first, filters, cap, []);
-  if (candidates.length < cap && rest.length) {
-    candidates = [...candidates, ...(await repo.matchHead(rankWords, rest, filters, cap - candidates.length, candidates.map((c) => c.id)))];
+  const found = () => candidates.map((c) => c.id);
+  // Every entry holding a rare word, ranked in SQL on all the words.
+  let candidates = await repo.matchHead(rankWords, rare, filters, cap, []);
+  // Entries holding every common word: they outscore those holding one, and there are far fewer.
+  if (candidates.length < cap && common.length >= 2) {
+    candidates = [...candidates, ...(await repo.matchHead(rankWords, { all: common }, filters, cap - candidates.length, found()))];
+  }
+  // Then the entries the common words score best in, from their postings (never all their matches).
+  if (candidates.length < cap && common.length) {
+    candidates = [...candidates, ...(await repo.matchPostings(rankWords, filters, cap - candidates.length, LIBRARY_TUNING.perReading, found()))];
   }
   if (candidates.length < cap) {
     candidates = [...candidates, ...(await repo.matchBody(allWords, filters, candidates.map((c) => c.id), cap - candidates.length))];
