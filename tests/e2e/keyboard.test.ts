@@ -133,6 +133,12 @@ class Keyboard {
     await expect.poll(() => this.page.evaluate(() => (document.activeElement as HTMLSelectElement).selectedOptions[0]?.text.trim() ?? '')).toMatch(new RegExp(`^${label.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}`));
   }
 
+  /** After a link or a form took the page elsewhere: the new page is shown and focus starts at its content. */
+  async arrive(heading: string): Promise<void> {
+    await this.page.getByRole('heading', { level: 1, name: heading }).waitFor(WAIT);
+    await this.expectFocus({ tag: 'main' });
+  }
+
   async expectFocus(want: Want): Promise<void> {
     await expect.poll(async () => {
       const now = await focused(this.page);
@@ -149,6 +155,7 @@ async function signInByKeyboard(keys: Keyboard, person: FreshPerson): Promise<vo
   await keys.type(person.password);
   await keys.press('Enter');
   await keys.page.waitForURL((url) => url.pathname !== '/sign-in', WAIT);
+  await keys.expectFocus({ tag: 'main' });
 }
 
 let browser: Browser;
@@ -216,16 +223,18 @@ describe('keyboard alone', () => {
     await g.page.locator('main h1').waitFor(WAIT);
     await g.tabTo(/^Sign in$/, { max: 10 });
     await g.press('Enter');
-    await g.page.getByRole('heading', { level: 1, name: 'Sign in' }).waitFor(WAIT);
+    await g.arrive('Sign in');
     await signInByKeyboard(g, grower);
 
-    // Records a batch.
-    await g.tabTo(/^Batch shelf$/, { back: true, max: 20 });
-    await g.press('Enter');
-    await g.page.getByRole('heading', { level: 1, name: 'Batch shelf' }).waitFor(WAIT);
+    // Records a batch, from the batch shelf (where signing in may already have led).
+    if (new URL(g.page.url()).pathname !== '/batches') {
+      await g.tabTo(/^Batch shelf$/, { back: true, max: 20 });
+      await g.press('Enter');
+    }
+    await g.arrive('Batch shelf');
     await g.tabTo(/^Add a batch$/);
     await g.press('Enter');
-    await g.page.getByRole('heading', { level: 1, name: 'Add a batch' }).waitFor(WAIT);
+    await g.arrive('Add a batch');
     await g.tabTo({ tag: 'select', name: /^Stage/ });
     await g.choose('FFJ');
     await g.tabTo({ tag: 'input', name: /^Label/ });
@@ -239,12 +248,12 @@ describe('keyboard alone', () => {
     await g.tabTo(/^Put it on the shelf$/);
     await g.press('Enter');
     await g.page.waitForURL(/\/batches\/\d+$/, WAIT);
-    await g.page.getByRole('heading', { level: 1, name: `Quince crock ${run}` }).waitFor(WAIT);
+    await g.arrive(`Quince crock ${run}`);
 
     // Opens a case about it: symptom chips with Space, the photo picker opened from the keyboard.
     await g.tabTo(/^Open a case about this batch$/);
     await g.press('Enter');
-    await g.page.getByRole('heading', { level: 1, name: 'Open a case' }).waitFor(WAIT);
+    await g.arrive('Open a case');
     const musty = await g.tabTo({ type: 'checkbox', name: /^Musty/ });
     expect(musty.checked).toBe(false);
     await g.press('Space');
@@ -265,7 +274,7 @@ describe('keyboard alone', () => {
     await g.press('Enter');
     await g.page.waitForURL(/\/cases\/\d+$/, { timeout: 30_000 });
     const caseId = Number(new URL(g.page.url()).pathname.split('/').pop());
-    await g.page.getByRole('heading', { level: 1, name: TITLE }).waitFor(WAIT);
+    await g.arrive(TITLE);
 
     // The photo opens larger from the keyboard, and Escape returns focus to its thumbnail.
     await g.tabTo(/^Photo 1 of 1/);
@@ -299,7 +308,7 @@ describe('keyboard alone', () => {
     await signInByKeyboard(m, mentor);
     await m.tabTo(/^Rounds$/, { back: true, max: 20 });
     await m.press('Enter');
-    await m.page.getByRole('heading', { level: 1, name: 'Rounds' }).waitFor(WAIT);
+    await m.arrive('Rounds');
     await m.tabTo({ tag: 'select', name: /^Order/ });
     await m.choose('Newest first');
     await m.page.waitForURL(/sort=newest/, WAIT);
@@ -309,13 +318,15 @@ describe('keyboard alone', () => {
     await expect.poll(() => row.getByText('You', { exact: true }).count(), WAIT).toBe(1);
     // The claim button is gone; focus is not lost with it but lands on the case it claimed.
     await m.expectFocus(new RegExp(`^${TITLE}$`));
+    await shot(m.page, 'keyboard-rounds-claimed-desktop');
     await m.press('Enter');
     await m.page.waitForURL(new RegExp(`/cases/${caseId}$`), WAIT);
-    await m.page.getByRole('heading', { level: 1, name: TITLE }).waitFor(WAIT);
+    await m.arrive(TITLE);
     await m.tabTo(/^Close the case…$/, { max: 120 });
     await m.press('Enter');
     // The form takes focus at its first field rather than leaving it on a button that went away.
     await m.expectFocus({ tag: 'select', name: /^Likely cause/ });
+    await shot(m.page, 'keyboard-closing-form-desktop');
     await m.choose('Too wet');
     await m.tabTo({ tag: 'select', name: /^Remedy to try/ });
     await m.choose('Drain the free liquid');
@@ -327,13 +338,14 @@ describe('keyboard alone', () => {
     await m.press('Enter');
     await expect.poll(() => m.page.getByText('Closed: the case is now watching').isVisible(), WAIT).toBe(true);
     await m.expectFocus(/^Closed: the case is now watching/);
+    await shot(m.page, 'keyboard-case-closed-desktop');
 
     // The grower files the recovery report from the case page.
     await g.page.goto(`/cases/${caseId}`);
     await g.page.getByRole('heading', { level: 1, name: TITLE }).waitFor(WAIT);
     await g.tabTo(/^File the recovery report$/);
     await g.press('Enter');
-    await g.page.getByRole('heading', { level: 1, name: 'How did the batch do?' }).waitFor(WAIT);
+    await g.arrive('How did the batch do?');
     await g.tabTo({ type: 'radio', name: /^Recovered/ });
     await g.press('Space');
     expect((await focused(g.page))?.checked).toBe(true);
@@ -364,7 +376,7 @@ describe('keyboard alone', () => {
     await expect.poll(() => v.page.getByRole('link', { name: TITLE, exact: true }).isVisible(), WAIT).toBe(true);
     await v.tabTo(new RegExp(`^${TITLE}$`));
     await v.press('Enter');
-    await v.page.getByRole('heading', { level: 1, name: TITLE }).waitFor(WAIT);
+    await v.arrive(TITLE);
     await shot(v.page, 'keyboard-field-note-desktop');
 
     expect([...g.unringed, ...m.unringed, ...v.unringed]).toEqual([]);
