@@ -18,6 +18,7 @@ import { attachFanout, type Fanout } from './fanout';
 import { caseRoom, caseStaffRoom, sessionRoom, STAFF_ROOM, userRoom } from './rooms';
 import { loadSessionUser, originGuard, refusal, type SessionRequest } from './socket-auth';
 import { errorAck, presenceSettled, registerThreadHandlers, type ThreadServer } from './thread-handlers';
+import { trackViewers, type ViewerRegistry } from './viewers';
 
 export interface Realtime {
   io: ThreadServer;
@@ -41,6 +42,9 @@ export function attachRealtime(httpServer: http.Server, ctx: AppContext, options
     allowRequest: originGuard(ctx.config.publicUrl),
   });
   const fanout: Fanout | null = options.fanoutDatabaseUrl ? attachFanout(io, options.fanoutDatabaseUrl) : null;
+  const viewers = trackViewers(io);
+  // Once this process hears the others, it asks who is on which case there.
+  const ready = (fanout?.ready ?? Promise.resolve()).then(() => viewers.hello());
 
   // The session is read on the handshake request only (later polling requests carry the
   // engine's sid); the person behind it is then loaded by the middleware below.
@@ -92,11 +96,11 @@ export function attachRealtime(httpServer: http.Server, ctx: AppContext, options
   sessionEvents.on('session:ended', onSessionEnded);
   sessionEvents.on('user:sessions-ended', onUserSessionsEnded);
   sessionEvents.on('user:changed', onUserChanged);
-  const removePublisher = addThreadPublisher(threadPublisher(io));
+  const removePublisher = addThreadPublisher(threadPublisher(io, viewers));
 
   return {
     io,
-    ready: fanout?.ready ?? Promise.resolve(),
+    ready,
     async close() {
       sessionEvents.off('session:ended', onSessionEnded);
       sessionEvents.off('user:sessions-ended', onUserSessionsEnded);
@@ -106,6 +110,7 @@ export function attachRealtime(httpServer: http.Server, ctx: AppContext, options
       io.local.disconnectSockets(true);
       // The people on those sockets leave the presence lists of the other processes' viewers.
       await presenceSettled(2_000);
+      viewers.close();
       await fanout?.close();
       // Not io.close(): that also closes the HTTP server, which startServer closes itself.
       io.engine.close();
@@ -137,8 +142,7 @@ async function dropChangedUser(io: ThreadServer, userId: number): Promise<void> 
   }
 }
 
-function threadPublisher(io: ThreadServer): ThreadPublisher {
-  const viewers = async (caseId: number) => new Set((await io.in(caseRoom(caseId)).fetchSockets()).map((s) => s.data.userId));
+function threadPublisher(io: ThreadServer, registry: ViewerRegistry): ThreadPublisher {
   return {
     async publish(change: ThreadChange, options: PublishOptions) {
       const { caseId } = change;
@@ -148,11 +152,9 @@ function threadPublisher(io: ThreadServer): ThreadPublisher {
         target.emit('message:new', message);
       }
       if (change.caseUpdate) io.to([caseRoom(caseId), STAFF_ROOM, userRoom(change.growerId)]).emit('case:updated', change.caseUpdate);
-      await settleUnread(io, change, await viewers(caseId));
+      await settleUnread(io, change, change.viewing ? null : (registry.viewersOf([caseId]).get(caseId) ?? new Set()));
     },
-    async isViewing(caseId, userId) {
-      return (await viewers(caseId)).has(userId);
-    },
+    viewersOf: (caseIds) => registry.viewersOf(caseIds),
     messageHidden(caseId, messageId) {
       io.to(caseRoom(caseId)).emit('message:hidden', { caseId, messageId });
     },
@@ -162,15 +164,17 @@ function threadPublisher(io: ThreadServer): ThreadPublisher {
 /**
  * The grower and the holding mentor count unread messages. Whoever is viewing the case has
  * just been sent the message, so it counts as read; the others are told to refresh their count.
+ * `viewing` null: the change says who was viewing, and their reads were marked as it was stored.
  */
-async function settleUnread(io: ThreadServer, change: ThreadChange, viewing: Set<number>): Promise<void> {
+async function settleUnread(io: ThreadServer, change: ThreadChange, viewing: Set<number> | null): Promise<void> {
   const counted = change.messages.filter((m) => m.kind !== 'system' && m.author);
   if (!counted.length) return;
+  const watching = viewing ?? new Set(change.viewing);
   const people = [...new Set([change.growerId, change.mentorId].filter((id): id is number => id !== null))];
   for (const userId of people) {
     const theirs = counted.filter((m) => m.author!.id !== userId && (m.kind === 'text' || userId !== change.growerId));
     if (!theirs.length) continue;
-    if (viewing.has(userId)) await messagesRepository.markRead(change.caseId, userId, theirs.at(-1)!.seq);
-    else io.to(userRoom(userId)).emit('unread', { caseId: change.caseId });
+    if (!watching.has(userId)) io.to(userRoom(userId)).emit('unread', { caseId: change.caseId });
+    else if (viewing) await messagesRepository.markRead(change.caseId, userId, theirs.at(-1)!.seq);
   }
 }

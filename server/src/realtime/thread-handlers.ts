@@ -32,8 +32,13 @@ type AckBody = { ok: true; [key: string]: unknown } | { ok: false; error: { code
 
 const NOT_FOUND = { ok: false as const, error: { code: 'not_found', message: 'That case was not found.' } };
 
+/** Photos take the full transaction in messages.service.ts, which reads no session: the person is read first. */
+const withoutPhotos = (input: { photoIds?: number[] }) => !input.photoIds?.length;
+
 export function errorAck(error: unknown): AckBody {
   if (error instanceof AppError) return { ok: false, error: { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) } };
+  // Every connection of the pool was in use for the whole wait: the database is there, Sporewell is just busy.
+  if ((error as Error | null)?.name === 'SequelizeConnectionAcquireTimeoutError') return { ok: false, error: { code: 'busy', message: 'Sporewell is very busy just now. Try again in a moment.' } };
   if (isConnectionError(error)) return { ok: false, error: { code: 'database_unavailable', message: 'Sporewell cannot reach its database just now. Try again in a few seconds.' } };
   log.error('socket.unhandled', { error: (error as Error)?.stack ?? String(error) });
   return { ok: false, error: { code: 'server_error', message: 'Something went wrong on our side. Try again in a moment.' } };
@@ -64,17 +69,30 @@ export async function presenceSettled(ms: number): Promise<void> {
 }
 
 export function registerThreadHandlers(io: ThreadServer, socket: ThreadSocket, ctx: AppContext): void {
+  /** The person as last read; a post re-checks them as it is stored, so it needs no read of its own. */
+  let known: Express.User | null = null;
   /** The person again, fresh from the session and users tables; null when the session or account is gone. */
   const freshUser = async (): Promise<Express.User | null> => {
     const user = await loadSessionUser(socket.data.sid, ctx.config.SESSION_ABSOLUTE_HOURS);
     // A changed role means different rooms: the socket is dropped and the client reconnects into the right ones.
-    if (!user || user.role !== socket.data.role) return null;
+    if (!user || user.role !== socket.data.role) return (known = null);
     socket.data.displayName = user.displayName;
-    return user;
+    return (known = user);
+  };
+  const refuse = (ack: (body: AckBody) => void) => {
+    // The ack goes out before the disconnect, so the client learns why.
+    ack({ ok: false, error: { code: 'unauthorized', message: 'Sign in again.' } });
+    socket.disconnect(true);
   };
 
   /** One acknowledged event: validated payload, fresh user, any failure as an error ack. */
-  const onAck = <S extends z.ZodType>(event: keyof ClientToServerEvents, schema: S, handle: (user: Express.User, payload: z.infer<S>) => Promise<AckBody>) => {
+  const onAck = <S extends z.ZodType>(
+    event: keyof ClientToServerEvents,
+    schema: S,
+    handle: (user: Express.User, payload: z.infer<S>) => Promise<AckBody>,
+    /** the statement storing this payload re-checks the session and account itself */
+    checkedInStatement: (payload: z.infer<S>) => boolean = () => false,
+  ) => {
     socket.on(event, async (...args: unknown[]) => {
       const last = args.at(-1);
       const ack = typeof last === 'function' ? (last as (body: AckBody) => void) : () => undefined;
@@ -82,15 +100,12 @@ export function registerThreadHandlers(io: ThreadServer, socket: ThreadSocket, c
       try {
         const parsed = schema.safeParse(payload);
         if (!parsed.success) return ack({ ok: false, error: { code: 'invalid_input', message: 'Some of what you sent needs fixing.', fields: fieldsOf(parsed.error) } });
-        const user = await freshUser();
-        if (!user) {
-          // The ack goes out before the disconnect, so the client learns why.
-          ack({ ok: false, error: { code: 'unauthorized', message: 'Sign in again.' } });
-          socket.disconnect(true);
-          return;
-        }
+        // A post checks the session and account in the statement that stores it (message-writer.ts).
+        const user = known && checkedInStatement(parsed.data) ? known : await freshUser();
+        if (!user) return refuse(ack);
         ack(await handle(user, parsed.data));
       } catch (error) {
+        if (error instanceof AppError && error.code === 'unauthorized') return refuse(ack);
         ack(errorAck(error));
       }
     });
@@ -116,14 +131,20 @@ export function registerThreadHandlers(io: ThreadServer, socket: ThreadSocket, c
     }
   });
 
-  onAck('message:send', sendMessageSchema, async (user, input) => {
-    const result = await postMessage(ctx, user, input.caseId, input);
-    // Acknowledge first (the message is stored), then fan out to everyone but this socket.
-    setImmediate(() => {
-      if (result.change) void publishChange(result.change, { skip: { socketId: socket.id, messageId: result.message.id } });
-    });
-    return { ok: true, message: result.message, duplicate: result.duplicate };
-  });
+  onAck(
+    'message:send',
+    sendMessageSchema,
+    async (user, input) => {
+      const result = await postMessage(ctx, user, input.caseId, input, withoutPhotos(input) ? { sid: socket.data.sid } : {});
+      if (result.message.author?.id === user.id) socket.data.displayName = user.displayName = result.message.author.displayName;
+      // Acknowledge first (the message is stored), then fan out to everyone but this socket.
+      setImmediate(() => {
+        if (result.change) void publishChange(result.change, { skip: { socketId: socket.id, messageId: result.message.id } });
+      });
+      return { ok: true, message: result.message, duplicate: result.duplicate };
+    },
+    withoutPhotos,
+  );
 
   onAck('message:since', sinceSchema, async (user, { caseId, afterSeq }) => {
     const page = await listMessages(user, caseId, { afterSeq });

@@ -12,7 +12,7 @@ export function threadPhotoUrls(caseId: number, photoId: number): Pick<ThreadPho
   return { url: `/api/cases/${caseId}/photos/${photoId}`, thumbUrl: `/api/cases/${caseId}/photos/${photoId}/thumb` };
 }
 
-interface MessageRow {
+export interface MessageRow {
   id: string | number;
   caseId: number;
   seq: number;
@@ -34,7 +34,7 @@ const MESSAGE_SELECT = `
             FROM case_photos p WHERE p.message_id = m.id) AS photos
     FROM messages m LEFT JOIN users u ON u.id = m.author_id`;
 
-function toMessage(row: MessageRow): ThreadMessage {
+export function toMessage(row: MessageRow): ThreadMessage {
   return {
     id: Number(row.id),
     caseId: row.caseId,

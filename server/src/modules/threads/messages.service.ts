@@ -1,15 +1,20 @@
 // The thread's rules, shared by the HTTP routes and the socket handlers. A post is stored in
 // one transaction (case row locked → duplicate check → next seq → insert → case fields, status,
-// urgency, mail); only then does the caller acknowledge and publish it.
+// urgency, mail); only then does the caller acknowledge and publish it. Most posts take the
+// group-commit path of message-writer.ts (the same checks in one statement shared with the
+// posts arriving meanwhile); the rarer ones that change the case's status, queue a reply
+// mail or attach photos take the transaction below.
 import { QueryTypes, type Transaction } from 'sequelize';
 import type { ThreadMessage } from '../../../shared/socket-events';
 import { CATCH_UP_MAX } from '../../../shared/socket-events';
 import type { AppContext } from '../../context';
 import { getSequelize } from '../../db/sequelize';
-import { AppError, conflict, forbidden, notFound } from '../../lib/errors';
+import { AppError, conflict, forbidden, notFound, unauthorized } from '../../lib/errors';
+import { log } from '../../lib/logger';
 import { readableCaseOr404, seesAsides, type CaseAccessRow } from '../cases/case-access';
 import { enqueueMail } from '../mail/outbox';
 import { messagesRepository as repo, type ThreadCase } from './messages.repository';
+import { writeMessage } from './message-writer';
 import { isViewingCase, type ThreadChange } from './thread-events';
 import { setWaiting, urgencyNow } from './urgency-recompute';
 
@@ -56,10 +61,56 @@ export interface PostResult {
   change: ThreadChange | null;
 }
 
-export async function postMessage(ctx: AppContext, user: Express.User, caseId: number, input: PostInput): Promise<PostResult> {
+const ASIDE_REFUSED = 'Only mentors and stewards can write a mentor aside.';
+const CLIENT_ID_TAKEN = 'That message id is already used in this case. Send it with a new one.';
+const THREAD_CLOSED = 'This case has ended, so its thread takes no new messages.';
+
+/**
+ * `via.sid`: the post comes from a socket of this session, which is checked again as the post
+ * is stored (a signed-out or disabled person's event is refused with 401 `unauthorized`).
+ */
+export async function postMessage(ctx: AppContext, user: Express.User, caseId: number, input: PostInput, via: { sid?: string } = {}): Promise<PostResult> {
+  if (!input.photoIds?.length) {
+    const written = await writeMessage({
+      caseId,
+      author: { id: user.id, role: user.role },
+      sid: via.sid ?? null,
+      startedAfterMs: via.sid ? Date.now() - ctx.config.SESSION_ABSOLUTE_HOURS * 3_600_000 : null,
+      kind: input.kind,
+      body: input.body,
+      clientId: input.clientId,
+      preview: previewOf(input.body),
+    });
+    switch (written.outcome) {
+      case 'stored':
+        return {
+          message: written.message,
+          duplicate: false,
+          change: { caseId, growerId: written.growerId, mentorId: written.mentorId, messages: [written.message], viewing: written.viewing },
+        };
+      case 'duplicate':
+        return { message: written.message, duplicate: true, change: null };
+      case 'unauthorized':
+        throw unauthorized('Sign in again.');
+      case 'refused':
+        // As readableCaseOr404 does: the same 404 as for a missing case, logged as refused access.
+        log.security('case.access_refused', { userId: user.id, caseId });
+        throw notFound('That case');
+      case 'not_found':
+        throw notFound('That case');
+      case 'forbidden':
+        throw forbidden(ASIDE_REFUSED);
+      case 'taken':
+        throw conflict('client_id_taken', CLIENT_ID_TAKEN);
+      case 'closed':
+        throw conflict('thread_closed', THREAD_CLOSED);
+      case 'slow':
+        break;
+    }
+  }
   const access = await readableCaseOr404(user, caseId);
   const staff = seesAsidesOn(user, access);
-  if (input.kind === 'aside' && !staff) throw forbidden('Only mentors and stewards can write a mentor aside.');
+  if (input.kind === 'aside' && !staff) throw forbidden(ASIDE_REFUSED);
   const mentorReply = staff && input.kind === 'text';
   // Asked before the transaction: presence is in memory (or the adapter), not in the database.
   const growerAway = mentorReply && !(await isViewingCase(caseId, access.growerId));
@@ -72,12 +123,12 @@ export async function postMessage(ctx: AppContext, user: Express.User, caseId: n
     const existing = await repo.findByClientId(caseId, input.clientId, transaction);
     if (existing) {
       // Someone else's id must not hand back their message (it could be an aside).
-      if (existing.authorId !== user.id) throw conflict('client_id_taken', 'That message id is already used in this case. Send it with a new one.');
+      if (existing.authorId !== user.id) throw conflict('client_id_taken', CLIENT_ID_TAKEN);
       const { authorId: _authorId, ...message } = existing;
       return { duplicate: true as const, message };
     }
     if (input.kind === 'text' && CLOSED_THREAD.has(row.status)) {
-      throw conflict('thread_closed', 'This case has ended, so its thread takes no new messages.');
+      throw conflict('thread_closed', THREAD_CLOSED);
     }
 
     const ids: number[] = [];

@@ -13,6 +13,11 @@ export interface ThreadChange {
   /** new messages in seq order; asides among them go to mentors and stewards only */
   messages: ThreadMessage[];
   caseUpdate?: CaseUpdatedPayload;
+  /**
+   * Of the grower and the holding mentor, who had a socket on the case when it was stored; their
+   * reads were marked with it. Absent: the publisher works it out and marks them itself.
+   */
+  viewing?: number[];
 }
 
 export interface PublishOptions {
@@ -22,8 +27,10 @@ export interface PublishOptions {
 
 export interface ThreadPublisher {
   publish(change: ThreadChange, options: PublishOptions): Promise<void>;
-  /** Whether this person has a socket joined to the case right now. */
-  isViewing(caseId: number, userId: number): Promise<boolean>;
+  /** Who has a socket joined to each of these cases right now, in any process (person ids). */
+  viewersOf?(caseIds: number[]): Map<number, Set<number>>;
+  /** The same for one person and case, for publishers that cannot list (none counts as viewing without either). */
+  isViewing?(caseId: number, userId: number): Promise<boolean>;
   /** A steward hid a message: its text is dropped from every open thread. */
   messageHidden(caseId: number, messageId: number): void;
 }
@@ -47,14 +54,32 @@ export async function publishChange(change: ThreadChange, options: PublishOption
 }
 
 export async function isViewingCase(caseId: number, userId: number): Promise<boolean> {
+  if (viewersOfCases([caseId]).get(caseId)?.has(userId)) return true;
   for (const publisher of publishers) {
     try {
-      if (await publisher.isViewing(caseId, userId)) return true;
+      if (!publisher.viewersOf && (await publisher.isViewing?.(caseId, userId))) return true;
     } catch (error) {
       log.error('realtime.presence_failed', { caseId, error: (error as Error).message });
     }
   }
   return false;
+}
+
+/** Who has a socket joined to each case, as every publisher knows it. Never throws. */
+export function viewersOfCases(caseIds: number[]): Map<number, Set<number>> {
+  const merged = new Map<number, Set<number>>();
+  for (const publisher of publishers) {
+    try {
+      for (const [caseId, users] of publisher.viewersOf?.(caseIds) ?? []) {
+        const into = merged.get(caseId);
+        if (into) for (const userId of users) into.add(userId);
+        else merged.set(caseId, new Set(users));
+      }
+    } catch (error) {
+      log.error('realtime.presence_failed', { caseIds: caseIds.length, error: (error as Error).message });
+    }
+  }
+  return merged;
 }
 
 /** For the moderation routes: call after a message was hidden, so open threads drop its text. */
