@@ -19,7 +19,7 @@
 //
 // BENCH_NOTES changes the size; BENCH_CAPS=200,100 measures other candidate counts side by side;
 // BENCH_DIR=<folder> keeps the (stopped) cluster and the full ranking there between runs;
-// BENCH_ROW_BUDGET and BENCH_PER_READING try other LIBRARY_TUNING values; BENCH_NO_ANCHOR=1
+// BENCH_TUNING='{"perReading":500}' tries other LIBRARY_TUNING values; BENCH_NO_ANCHOR=1
 // skips the bare full-text anchor (for tuning runs only: the table needs it).
 import fs from 'node:fs';
 import os from 'node:os';
@@ -346,8 +346,7 @@ async function main(): Promise<number> {
       `Field Library search at ${NOTES.toLocaleString('en')} field notes + ${guides.length} guides, ${set.length} queries (${set.filter((q) => q.misspelt).length} misspelt), ${ROUNDS} timed rounds`,
     );
     // The anchor QUALITY.md measures against, in this same run: a bare PostgreSQL full-text top 10.
-    if (process.env.BENCH_ROW_BUDGET) LIBRARY_TUNING.rowBudget = Number(process.env.BENCH_ROW_BUDGET);
-    if (process.env.BENCH_PER_READING) LIBRARY_TUNING.perReading = Number(process.env.BENCH_PER_READING);
+    Object.assign(LIBRARY_TUNING, JSON.parse(process.env.BENCH_TUNING ?? '{}'));
     say(`tuning: ${JSON.stringify(LIBRARY_TUNING)}`);
     const anchor: number[] = [];
     for (let round = 0; round < (process.env.BENCH_NO_ANCHOR ? 0 : ROUNDS); round++) {

@@ -39,6 +39,8 @@ export const LIBRARY_TUNING = {
   rowBudget: 1500,
   /** a common word's strongest postings read per reading of it */
   perReading: 200,
+  /** before the postings, the entries holding every common word (when there are two or more) */
+  everyCommonWordFirst: true,
 };
 const KNOWN_WORDS_PER_WORD = 3;
 /** Known words containing a typed one, per word (fuse.js matches inside longer words). */
@@ -144,7 +146,7 @@ export async function narrow(q: string, filters: EntryFilters): Promise<Narrowed
   // Every entry holding a rare word, ranked in SQL on all the words.
   let candidates = await repo.matchHead(rankWords, rare, filters, cap, []);
   // Entries holding every common word: they outscore those holding one, and there are far fewer.
-  if (candidates.length < cap && common.length >= 2) {
+  if (candidates.length < cap && common.length >= 2 && LIBRARY_TUNING.everyCommonWordFirst) {
     candidates = [...candidates, ...(await repo.matchHead(rankWords, { all: common }, filters, cap - candidates.length, found()))];
   }
   // Then the entries the common words score best in, from their postings (never all their matches).
