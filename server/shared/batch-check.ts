@@ -8,7 +8,8 @@
 // own sugars and salts, the glucose and fructose in brown sugar) are left out, and they would
 // lower water activity a little further, so the estimate leans to the wet, cautious side.
 import { z } from 'zod';
-import { STAGE_IDS, symptomSchema, type StageId, type SymptomId } from './vocabulary';
+import { STAGE_IDS, type StageId, type SymptomId } from './vocabulary';
+import { symptomSchema } from './vocabulary-schemas';
 import { formatMass, fromGrams, massUnitSchema, toGrams, type MassUnit } from './units';
 import { DISCARD_SIGN_WORDS, SAFETY_CAUTIONS, discardNote, discardSignsIn, type DiscardSign } from './cautions';
 

@@ -3,6 +3,7 @@
 // what the closing routes answer.
 import { z } from 'zod';
 import type { CaseStatus } from './case-status';
+import { OUTCOMES, OUTCOME_LABELS, type Outcome } from './outcomes';
 import { CAUSE_IDS, REMEDY_IDS, type CauseId, type RemedyId } from './vocabulary';
 
 /** Check-ins after closing, in days: the grower hears from us after 1, 3 and 7 days unless they
@@ -12,14 +13,8 @@ export const MAX_CHECK_IN_DAY = 14;
 /** A steward may close a watching case as lost once this many days passed with no report. */
 export const LOST_AFTER_DAYS = 14;
 
-export const OUTCOMES = ['recovered', 'partly', 'lost'] as const;
-export type Outcome = (typeof OUTCOMES)[number];
+export { OUTCOMES, OUTCOME_LABELS, type Outcome };
 export const outcomeSchema = z.enum(OUTCOMES, { error: 'Choose recovered, partly or lost.' });
-export const OUTCOME_LABELS: Record<Outcome, string> = {
-  recovered: 'Recovered',
-  partly: 'Partly recovered',
-  lost: 'Lost',
-};
 
 const text = (max: number, what: string) =>
   z.string({ error: `Enter ${what} as text.` }).trim().max(max, { error: `Keep ${what} under ${max} characters.` });

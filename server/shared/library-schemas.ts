@@ -1,30 +1,15 @@
-// The Field Library's contract (PRODUCT.md screen 8) and the mentor profile (screen 9): the query
-// the list accepts and the shapes the routes answer.
-import { z } from 'zod';
-import type { Outcome } from './closing-schemas';
+// The Field Library's contract (PRODUCT.md screen 8) and the mentor profile (screen 9): the
+// limits of the list's query and the shapes the routes answer. No zod here, so the library's
+// pages can read these without loading it; the query's schema is in library-query.ts.
+import type { Outcome } from './outcomes';
 import type { RemedyRecord, TrackRecord } from './remedy-records';
-import { STAGE_IDS, SYMPTOM_IDS } from './vocabulary';
 
 export const LIBRARY_KINDS = ['guide', 'note'] as const;
 export type LibraryKind = (typeof LIBRARY_KINDS)[number];
 export const MAX_QUERY_CHARS = 200;
 export const LIBRARY_PAGE_SIZE = 20;
 
-const oneOrMany = <T extends z.ZodType>(item: T, max: number) =>
-  z.union([item.transform((v) => [v]), z.array(item).max(max, { error: `Choose at most ${max}.` })]);
-
-export const libraryQuerySchema = z.object({
-  q: z
-    .string({ error: 'Search with words.' })
-    .max(MAX_QUERY_CHARS, { error: `Keep the search under ${MAX_QUERY_CHARS} characters.` })
-    .optional(),
-  stage: z.enum(STAGE_IDS, { error: 'That is not one of the stages Sporewell knows.' }).optional(),
-  symptom: oneOrMany(z.enum(SYMPTOM_IDS, { error: 'That is not one of the symptoms Sporewell knows.' }), 5).optional(),
-  kind: z.enum(LIBRARY_KINDS, { error: 'Choose guides or field notes.' }).optional(),
-  page: z.coerce.number({ error: 'The page is a number.' }).int().min(1).max(500).default(1),
-  pageSize: z.coerce.number({ error: 'The page size is a number.' }).int().min(1).max(50).default(LIBRARY_PAGE_SIZE),
-});
-export type LibraryQuery = z.output<typeof libraryQuerySchema>;
+export type { LibraryQuery } from './library-query';
 
 /** A remedy's record as a card shows it. */
 export type RemedyRecordView = RemedyRecord & { text: string };

@@ -2,7 +2,8 @@
 // client reads. Imports nothing but zod and this folder.
 import { z } from 'zod';
 import { roleSchema, type Role } from './case-status';
-import { stageSchema, type StageId } from './vocabulary';
+import type { StageId } from './vocabulary';
+import { stageSchema } from './vocabulary-schemas';
 import type { MentorLoad, OpenByUrgency, RecoveryRate, WeekReplyTimes, WeekStageCounts } from './metrics';
 
 // ---------------------------------------------------------------------------------------------

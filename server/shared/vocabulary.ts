@@ -1,6 +1,6 @@
 // The trade's vocabulary and our own short lists. Ids are what the API accepts and stores;
-// labels are what a grower reads. Nothing here may import anything but zod.
-import { z } from 'zod';
+// labels are what a grower reads. Plain data that imports nothing, so a page that only shows
+// labels (the Field Library) does not load zod; the schemas are in vocabulary-schemas.ts.
 
 export interface VocabularyItem<Id extends string = string> {
   id: Id;
@@ -24,7 +24,6 @@ export const STAGES = [
 
 export type StageId = (typeof STAGES)[number]['id'];
 export const STAGE_IDS = STAGES.map((s) => s.id) as [StageId, ...StageId[]];
-export const stageSchema = z.enum(STAGE_IDS);
 
 export const SYMPTOM_GROUPS = [
   { id: 'smell', label: 'Smell' },
@@ -63,7 +62,6 @@ export const SYMPTOMS = [
 
 export type SymptomId = (typeof SYMPTOMS)[number]['id'];
 export const SYMPTOM_IDS = SYMPTOMS.map((s) => s.id) as [SymptomId, ...SymptomId[]];
-export const symptomSchema = z.enum(SYMPTOM_IDS);
 
 // Our own short lists for closing a case (PRODUCT.md §6).
 export const CAUSES = [
@@ -81,7 +79,6 @@ export const CAUSES = [
 ] as const satisfies readonly VocabularyItem[];
 export type CauseId = (typeof CAUSES)[number]['id'];
 export const CAUSE_IDS = CAUSES.map((c) => c.id) as [CauseId, ...CauseId[]];
-export const causeSchema = z.enum(CAUSE_IDS);
 
 export const REMEDIES = [
   { id: 'add-sugar', label: 'Mix in or top-dress more sugar' },
@@ -99,7 +96,6 @@ export const REMEDIES = [
 ] as const satisfies readonly VocabularyItem[];
 export type RemedyId = (typeof REMEDIES)[number]['id'];
 export const REMEDY_IDS = REMEDIES.map((r) => r.id) as [RemedyId, ...RemedyId[]];
-export const remedySchema = z.enum(REMEDY_IDS);
 
 export function labelOf(list: readonly VocabularyItem[], id: string): string {
   return list.find((item) => item.id === id)?.label ?? id;

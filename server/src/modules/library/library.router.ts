@@ -3,7 +3,7 @@
 //   GET /api/library/:slug                                              → LibraryEntry
 //   GET /api/library/:slug/photos/:photoId(/thumb)                      → a photo the note lists
 import { Router, type Response } from 'express';
-import { libraryQuerySchema } from '../../../shared/library-schemas';
+import { libraryQuerySchema } from '../../../shared/library-query';
 import type { AppContext } from '../../context';
 import { parseId, parseOr400 } from '../../lib/http';
 import { createPhotoStore } from '../../lib/photo-store';

@@ -1,4 +1,4 @@
-import { OUTCOME_LABELS, type Outcome } from '@shared/closing-schemas';
+import { OUTCOME_LABELS, type Outcome } from '@shared/outcomes';
 import { cx } from '../../../components/ui/cx';
 
 const TONES: Record<Outcome, string> = {
