@@ -1,109 +1,16 @@
 // The live thread against a real listening server (startServer), with socket.io-client over
 // websocket carrying the session cookie got by signing in over HTTP.
-import { afterAll, afterEach, beforeAll, describe, expect, test } from 'vitest';
+import { describe, expect, test } from 'vitest';
 import { QueryTypes } from 'sequelize';
-import { io as connectClient, type Socket } from 'socket.io-client';
-import type { Role } from '../../server/shared/case-status';
-import type { Ack, ClientToServerEvents, PresenceEntry, ServerToClientEvents, ThreadMessage } from '../../server/shared/socket-events';
-import { startServer, type RunningServer } from '../../server/src/index';
 import { getSequelize } from '../../server/src/db/sequelize';
 import { sessionEvents } from '../../server/src/lib/session-events';
 import { usersRepository } from '../../server/src/modules/users/users.repository';
 import { TEST_ORIGIN } from '../setup/test-app';
-import { createUser, FACTORY_PASSWORD } from '../factories/users';
-import { createThreadCase, messageRows, newClientId, outboxFor } from '../factories/threads';
+import { ask, inbox, join, send, since, sleep, useLiveServer, waitFor, type SendAck } from '../setup/live-server';
+import { createUser } from '../factories/users';
+import { messageRows, newClientId, outboxFor } from '../factories/threads';
 
-type Client = Socket<ServerToClientEvents, ClientToServerEvents>;
-
-let server: RunningServer;
-const open: Client[] = [];
-
-beforeAll(async () => {
-  server = await startServer({ env: { ...process.env, PORT: '0', PUBLIC_URL: TEST_ORIGIN }, migrate: false, seedDemo: false, mailIntervalMs: 60_000 });
-});
-afterEach(() => {
-  while (open.length) open.pop()!.disconnect();
-});
-afterAll(async () => {
-  await server.close();
-});
-
-async function signIn(email: string): Promise<string> {
-  const res = await fetch(`${server.url}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json', Origin: server.url },
-    body: JSON.stringify({ email, password: FACTORY_PASSWORD }),
-  });
-  expect(res.status).toBe(200);
-  const cookie = res.headers.getSetCookie().find((c) => c.startsWith('sporewell.sid='));
-  return cookie!.split(';')[0];
-}
-
-async function person(role: Role, displayName?: string) {
-  const user = await createUser({ role, displayName });
-  return { user, cookie: await signIn(user.email) };
-}
-
-function connect(cookie: string | null, origin?: string): Promise<Client> {
-  const headers: Record<string, string> = {};
-  if (cookie) headers.cookie = cookie;
-  if (origin) headers.origin = origin;
-  const socket: Client = connectClient(server.url, { transports: ['websocket'], reconnection: false, forceNew: true, extraHeaders: headers });
-  open.push(socket);
-  return new Promise((resolve, reject) => {
-    socket.once('connect', () => resolve(socket));
-    socket.once('connect_error', (error) => reject(error));
-  });
-}
-
-function api(cookie: string, method: string, path: string, body?: unknown) {
-  return fetch(`${server.url}${path}`, {
-    method,
-    headers: { 'Content-Type': 'application/json', Origin: server.url, cookie },
-    body: body === undefined ? undefined : JSON.stringify(body),
-  });
-}
-
-/** Collects every `message:new` a socket receives. */
-function inbox(socket: Client): ThreadMessage[] {
-  const got: ThreadMessage[] = [];
-  socket.on('message:new', (m) => got.push(m));
-  return got;
-}
-
-function waitFor<T>(check: () => T | undefined | false, ms = 3000): Promise<T> {
-  return new Promise((resolve, reject) => {
-    const started = Date.now();
-    const tick = () => {
-      const value = check();
-      if (value) return resolve(value);
-      if (Date.now() - started > ms) return reject(new Error('timed out waiting'));
-      setTimeout(tick, 15);
-    };
-    tick();
-  });
-}
-
-const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
-
-type JoinAck = Ack<{ messages: ThreadMessage[]; presence: PresenceEntry[]; hasMore: boolean }>;
-type SinceAck = Ack<{ messages: ThreadMessage[]; hasMore: boolean }>;
-type SendAck = Ack<{ message: ThreadMessage; duplicate: boolean }>;
-
-/** Emits with an ack and a timeout, payload unchecked (bad payloads are part of the tests). */
-function ask<T>(socket: Client, event: string, payload: unknown): Promise<T> {
-  return (socket.timeout(5000) as unknown as { emitWithAck(e: string, p: unknown): Promise<T> }).emitWithAck(event, payload);
-}
-const join = (socket: Client, caseId: number, afterSeq?: number) => ask<JoinAck>(socket, 'case:join', afterSeq === undefined ? { caseId } : { caseId, afterSeq });
-const since = (socket: Client, caseId: number, afterSeq: number) => ask<SinceAck>(socket, 'message:since', { caseId, afterSeq });
-const send = (socket: Client, caseId: number, body: string, extra: Record<string, unknown> = {}) =>
-  ask<SendAck>(socket, 'message:send', { caseId, clientId: newClientId(), body, ...extra });
-
-async function aCase(options: { mentorId?: number; status?: 'awaiting_mentor' | 'in_conversation' } = {}) {
-  const grower = await person('grower', 'Ada Fernhill');
-  const kase = await createThreadCase({ growerId: grower.user.id, ...options });
-  return { grower, caseId: kase.id };
-}
+const { signIn, person, connect, api, aCase } = useLiveServer();
 
 describe('the handshake', () => {
   test('when there is no session cookie, or a made-up one, then the connection is refused at connect', async () => {

@@ -86,6 +86,15 @@ export const batchesRepository = {
     return rows[0] ?? null;
   },
 
+  /** Whose batch this is, or null when there is no such batch (to tell a refused access from a typo). */
+  async ownerOf(id: number): Promise<number | null> {
+    const rows = await getSequelize().query<{ ownerId: number }>(`SELECT owner_id AS "ownerId" FROM batches WHERE id = :id`, {
+      replacements: { id },
+      type: QueryTypes.SELECT,
+    });
+    return rows[0]?.ownerId ?? null;
+  },
+
   async listOwned(ownerId: number, page: number, pageSize: number): Promise<{ rows: BatchRow[]; total: number }> {
     const sequelize = getSequelize();
     const [rows, count] = await Promise.all([

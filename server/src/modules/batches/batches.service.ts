@@ -1,7 +1,8 @@
 // The batch shelf's rules: owner only (anyone else's batch is "not found"), and each batch
 // answered with its age and, when both weights are known, the sugar & water check in brief.
 import type { BatchCreate, BatchPatch, BatchView, CaseNumbers } from '../../../shared/case-schemas';
-import { notFound } from '../../lib/errors';
+import { notFound, type AppError } from '../../lib/errors';
+import { log } from '../../lib/logger';
 import { checkOf } from '../cases/case-assessment';
 import { batchesRepository, type BatchRow } from './batches.repository';
 
@@ -14,6 +15,13 @@ export function numbersOfBatch(row: BatchRow): CaseNumbers | null {
     sugarType: row.sugarType ?? undefined,
     moisturePct: row.moisturePct ?? undefined,
   };
+}
+
+/** The 404 for a batch that is missing or someone else's; the second is a refused access and is logged (ASVS 16.3.2). */
+async function batchNotFound(userId: number, id: number): Promise<AppError> {
+  const ownerId = await batchesRepository.ownerOf(id);
+  if (ownerId !== null && ownerId !== userId) log.security('batch.access_refused', { userId, batchId: id });
+  return notFound('That batch');
 }
 
 export function batchView(row: BatchRow): BatchView {
@@ -58,7 +66,7 @@ export const batchesService = {
 
   async ownedOr404(ownerId: number, id: number): Promise<BatchRow> {
     const row = await batchesRepository.findOwned(ownerId, id);
-    if (!row) throw notFound('That batch');
+    if (!row) throw await batchNotFound(ownerId, id);
     return row;
   },
 
@@ -70,7 +78,7 @@ export const batchesService = {
 
   async update(ownerId: number, id: number, patch: BatchPatch): Promise<BatchView> {
     const row = await batchesRepository.updateOwned(ownerId, id, patch);
-    if (!row) throw notFound('That batch');
+    if (!row) throw await batchNotFound(ownerId, id);
     return batchView(row);
   },
 };

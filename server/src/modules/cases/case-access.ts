@@ -3,6 +3,7 @@
 import { QueryTypes } from 'sequelize';
 import { getSequelize } from '../../db/sequelize';
 import { notFound } from '../../lib/errors';
+import { log } from '../../lib/logger';
 
 export interface CaseAccessRow {
   id: number;
@@ -32,6 +33,12 @@ export async function findCaseForAccess(caseId: number): Promise<CaseAccessRow |
 
 export async function readableCaseOr404(user: Express.User | undefined, caseId: number): Promise<CaseAccessRow> {
   const row = await findCaseForAccess(caseId);
-  if (!row || !canReadCase(user, row)) throw notFound('That case');
+  if (!row) throw notFound('That case');
+  if (!canReadCase(user, row)) {
+    // The answer is the same 404 as for a missing case, but this is a refused access, not a
+    // typo: the error handler logs only 401/403, so it is logged here (ASVS 16.3.2).
+    log.security('case.access_refused', { userId: user?.id ?? null, caseId });
+    throw notFound('That case');
+  }
   return row;
 }
