@@ -9,10 +9,11 @@ import sharp from 'sharp';
 import { getSequelize } from '../../server/src/db/sequelize';
 import { closePhotoStores, newPhotoKeys } from '../../server/src/lib/photo-store';
 import { createS3PhotoStore } from '../../server/src/lib/s3-photo-store';
-import { agent, makeTestApp, TEST_ORIGIN, type TestApp } from '../setup/test-app';
+import { makeTestApp, TEST_ORIGIN, type TestApp } from '../setup/test-app';
 import { startS3Fake, type S3Fake } from '../setup/s3-fake';
 import { signedIn } from '../factories/sign-in';
 import { createCase } from '../factories/cases';
+import { getBytes } from '../factories/photos';
 
 let fake: S3Fake;
 let t: TestApp;
@@ -32,18 +33,6 @@ afterAll(async () => {
 function filesUnder(dir: string): string[] {
   if (!fs.existsSync(dir)) return [];
   return fs.readdirSync(dir, { recursive: true, withFileTypes: true }).filter((e) => e.isFile()).map((e) => e.name);
-}
-
-/** GET with the body kept as bytes. */
-function getBytes(browser: ReturnType<typeof agent>, url: string) {
-  return browser
-    .get(url)
-    .buffer(true)
-    .parse((r, done) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => done(null, Buffer.concat(chunks)));
-    });
 }
 
 async function storedKeys(photoId: number): Promise<{ storageKey: string; thumbKey: string }> {

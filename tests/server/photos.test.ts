@@ -1,12 +1,11 @@
-import fs from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import { QueryTypes } from 'sequelize';
 import sharp from 'sharp';
 import { getSequelize } from '../../server/src/db/sequelize';
 import { casesRepository } from '../../server/src/modules/cases/cases.repository';
 import { agent, makeTestApp, TEST_ORIGIN, type TestApp } from '../setup/test-app';
 import { signedIn } from '../factories/sign-in';
+import { filesUnder, getBytes, photoRows, uploadPhotos as upload } from '../factories/photos';
 import { createCase } from '../factories/cases';
 
 let t: TestApp;
@@ -31,28 +30,7 @@ async function phoneJpeg(width = 1200, height = 900): Promise<Buffer> {
     .toBuffer();
 }
 
-function filesUnder(dir: string): string[] {
-  if (!fs.existsSync(dir)) return [];
-  return fs.readdirSync(dir, { recursive: true, withFileTypes: true }).filter((e) => e.isFile()).map((e) => path.join(e.parentPath, e.name));
-}
-
 const uploadDir = () => path.resolve(t.config.UPLOAD_DIR);
-
-async function photoRows(caseId: number): Promise<number> {
-  const [row] = await getSequelize().query<{ n: number }>(`SELECT count(*)::int AS n FROM case_photos WHERE case_id = :caseId`, {
-    replacements: { caseId },
-    type: QueryTypes.SELECT,
-  });
-  return row.n;
-}
-
-/** Sends files; a server that stops reading early may reset the socket, which counts as its answer. */
-async function upload(browser: ReturnType<typeof agent>, caseId: number, files: { data: Buffer; name: string }[], fields: Record<string, string> = {}) {
-  let req = browser.post(`/api/cases/${caseId}/photos`).set(origin);
-  for (const [key, value] of Object.entries(fields)) req = req.field(key, value);
-  for (const file of files) req = req.attach('photos', file.data, { filename: file.name, contentType: 'image/jpeg' });
-  return req;
-}
 
 describe('POST /api/cases/:id/photos', () => {
   test('when the grower uploads a phone photo with GPS in its EXIF, then it comes back upright as a JPEG with no metadata at all, plus a thumbnail', async () => {
@@ -75,11 +53,7 @@ describe('POST /api/cases/:id/photos', () => {
     // Orientation 6 turns the 1200 × 900 picture upright to 900 × 1200 (EXIF 2.3 orientation tag).
     expect(photo).toMatchObject({ url: `/api/cases/${caseId}/photos/${photo.id}`, thumbUrl: `/api/cases/${caseId}/photos/${photo.id}/thumb`, width: 900, height: 1200 });
 
-    const full = await browser.get(photo.url).buffer(true).parse((r, done) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => done(null, Buffer.concat(chunks)));
-    });
+    const full = await getBytes(browser, photo.url);
     expect(full.status).toBe(200);
     expect(full.headers['content-type']).toBe('image/jpeg');
     expect(full.headers['x-content-type-options']).toBe('nosniff');
@@ -94,11 +68,7 @@ describe('POST /api/cases/:id/photos', () => {
     expect([meta.width, meta.height]).toEqual([900, 1200]);
     expect((full.body as Buffer).includes(Buffer.from('Field camera'))).toBe(false);
 
-    const thumb = await browser.get(photo.thumbUrl).buffer(true).parse((r, done) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => done(null, Buffer.concat(chunks)));
-    });
+    const thumb = await getBytes(browser, photo.thumbUrl);
     const thumbMeta = await sharp(thumb.body as Buffer).metadata();
     expect(Math.max(thumbMeta.width!, thumbMeta.height!)).toBe(400);
     expect(thumbMeta.exif).toBeUndefined();
