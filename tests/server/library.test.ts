@@ -121,7 +121,8 @@ describe('GET /api/library search', () => {
     // Other test files share this database, so other bubbling notes may be there too.
     for (const item of items.slice(0, 3)) expect(item.symptoms.some((s) => s === 'bubbling' || s === 'smell-sour')).toBe(true);
     expect(slugs.indexOf(bubblingSour)).toBeGreaterThanOrEqual(0);
-    expect(slugs.indexOf(bubblingSour)).toBeLessThan(5);
+    // Only notes that are both bubbling and sour may rank above it (other files publish such notes).
+    for (const item of items.slice(0, slugs.indexOf(bubblingSour))) expect(item.symptoms).toEqual(expect.arrayContaining(['bubbling', 'smell-sour']));
     expect(slugs.indexOf(bubblingSour)).toBeLessThan(slugs.indexOf(bubblingOnly));
     expect(slugs).not.toContain(unrelated);
     expect(res.body.readAs.soure).toContain('sour');
