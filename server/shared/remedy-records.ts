@@ -64,15 +64,23 @@ export function trackRecord(counts: OutcomeCounts, prior: RatingPrior = DEFAULT_
 export interface RemedyRecord extends TrackRecord {
   remedy: string;
   label: string;
+  /** false for advice that does not try to save the batch (discarding it): its "rate" is 0 by
+   * design, so it is not ranked with the rescues and its text says what it is instead */
+  rescue: boolean;
 }
 
-/** One record per remedy, best first by the Wilson lower bound (not the raw rate). */
+/** Remedies that give the batch up on purpose, usually because keeping it is not safe. */
+export const NOT_A_RESCUE: ReadonlySet<string> = new Set(['discard-restart']);
+
+/** One record per remedy: the rescues best first by the Wilson lower bound (not the raw rate),
+ * then the advice to discard. */
 export function remedyRecords(rows: ReadonlyArray<OutcomeCounts & { remedy: string }>): RemedyRecord[] {
-  const records = rows.map((row) => ({ ...trackRecord(row), remedy: row.remedy, label: labelOf(REMEDIES, row.remedy) }));
-  return rankByLowerBound(records.map((r) => ({ ...r, successes: r.saved }))).map(({ item }) => {
+  const records = rows.map((row) => ({ ...trackRecord(row), remedy: row.remedy, label: labelOf(REMEDIES, row.remedy), rescue: !NOT_A_RESCUE.has(row.remedy) }));
+  const ranked = rankByLowerBound(records.filter((r) => r.rescue).map((r) => ({ ...r, successes: r.saved }))).map(({ item }) => {
     const { successes: _successes, ...record } = item;
     return record;
   });
+  return [...ranked, ...records.filter((r) => !r.rescue).sort((a, b) => b.trials - a.trials)];
 }
 
 /** A whole percent for people: 0.6463 → "65 %". */
@@ -81,9 +89,10 @@ export function percentText(share: number): string {
 }
 
 /** "saved 11 of 12 batches (lower bound 65 %)", with the partly saved ones named. */
-export function describeRecord(record: Pick<TrackRecord, 'saved' | 'trials' | 'partly' | 'lower'>): string {
+export function describeRecord(record: Pick<TrackRecord, 'saved' | 'trials' | 'partly' | 'lower'> & { rescue?: boolean }): string {
   if (record.trials === 0) return 'no recovery reports yet';
   const batches = record.trials === 1 ? 'batch' : 'batches';
+  if (record.rescue === false) return `the advice for ${record.trials} ${batches} not safe to keep or past saving`;
   const partly = record.partly > 0 ? `, ${record.partly} of them partly` : '';
   return `saved ${record.saved} of ${record.trials} ${batches}${partly} (lower bound ${percentText(record.lower)})`;
 }

@@ -49,6 +49,8 @@ describe('GET /api/mentors/:id', () => {
       await getSequelize().query(`UPDATE cases SET stars = $2 WHERE id = $1`, { bind: [resolved[index], stars] });
     }
     const note = await publishFieldNote(resolved[0]);
+    // Advice to discard an unsafe batch is no failed rescue: it counts as a case helped, in no rate.
+    await createResolvedCase(grower.user.id, { mentorId: mentor.user.id, outcome: 'lost', remedy: 'discard-restart', openedAt: daysAgo(10) });
     await createCase(grower.user.id, { status: 'watching', mentorId: mentor.user.id });
     await createCase(grower.user.id, { status: 'in_conversation', mentorId: mentor.user.id });
     // First replies 2, 4 and 9 hours after opening; an aside and a later reply do not count.
@@ -62,7 +64,7 @@ describe('GET /api/mentors/:id', () => {
 
     const res = await grower.browser.get(`/api/mentors/${mentor.user.id}`);
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ id: mentor.user.id, displayName: 'Hale Mentor', role: 'mentor', casesHelped: 5, casesOpen: 1, repliesCounted: 3 });
+    expect(res.body).toMatchObject({ id: mentor.user.id, displayName: 'Hale Mentor', role: 'mentor', casesHelped: 6, casesOpen: 1, repliesCounted: 3 });
     // from the data above: the median of 2, 4 and 9 hours
     expect(res.body.medianHoursToFirstReply).toBeCloseTo(4, 6);
     const expected = wilsonInterval(3, 4);

@@ -72,6 +72,19 @@ describe('remedyRecords', () => {
     expect(ranked[0]).not.toHaveProperty('successes');
   });
 
+  test('when the advice was to discard the batch, then it is listed after every rescue and its text does not call it a failure', () => {
+    const ranked = remedyRecords([
+      { remedy: 'discard-restart', ...counts(0, 0, 40) },
+      { remedy: 'wait-and-watch', ...counts(0, 0, 2) },
+    ]);
+    expect(ranked.map((r) => [r.remedy, r.rescue])).toEqual([
+      ['wait-and-watch', true],
+      ['discard-restart', false],
+    ]);
+    expect(describeRecord(ranked[1])).toBe('the advice for 40 batches not safe to keep or past saving');
+    expect(describeRecord(ranked[0])).toMatch(/^saved 0 of 2 batches/);
+  });
+
   test('when the shares are rounded for people, then halves round up', () => {
     expect(percentText(0.6463)).toBe('65 %');
     expect(percentText(0.125)).toBe('13 %');

@@ -4,7 +4,7 @@ import { QueryTypes } from 'sequelize';
 import { OPEN_STATUSES } from '../../../shared/case-status';
 import type { Outcome } from '../../../shared/closing-schemas';
 import type { MentorChoice } from '../../../shared/library-schemas';
-import type { OutcomeCounts } from '../../../shared/remedy-records';
+import { NOT_A_RESCUE, type OutcomeCounts } from '../../../shared/remedy-records';
 import { getSequelize } from '../../db/sequelize';
 
 export interface MentorRow {
@@ -60,13 +60,14 @@ export const mentorsRepository = {
     const [row] = await getSequelize().query<MentorStats>(
       `SELECT count(*) FILTER (WHERE status IN ('watching', 'recovered', 'lost'))::int AS "casesHelped",
               count(*) FILTER (WHERE status IN ('in_conversation', 'over_to_grower'))::int AS "casesOpen",
-              count(*) FILTER (WHERE outcome = 'recovered')::int AS recovered,
-              count(*) FILTER (WHERE outcome = 'partly')::int AS partly,
-              count(*) FILTER (WHERE outcome = 'lost')::int AS lost,
+              -- advice to discard a batch is not a failed rescue: it counts in no recovery rate
+              count(*) FILTER (WHERE outcome = 'recovered' AND rescue)::int AS recovered,
+              count(*) FILTER (WHERE outcome = 'partly' AND rescue)::int AS partly,
+              count(*) FILTER (WHERE outcome = 'lost' AND rescue)::int AS lost,
               COALESCE(sum(stars) FILTER (WHERE outcome IS NOT NULL), 0)::int AS "starsSum",
               count(stars) FILTER (WHERE outcome IS NOT NULL)::int AS "starsCount"
-         FROM cases WHERE mentor_id = $1`,
-      { bind: [mentorId], type: QueryTypes.SELECT },
+         FROM (SELECT status, outcome, stars, remedy IS NULL OR remedy <> ALL($2::text[]) AS rescue FROM cases WHERE mentor_id = $1) c`,
+      { bind: [mentorId, [...NOT_A_RESCUE]], type: QueryTypes.SELECT },
     );
     return row;
   },

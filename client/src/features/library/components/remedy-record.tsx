@@ -10,7 +10,7 @@ export function RemedyRecord({ record, showLabel = true, className }: { record: 
         {showLabel && <span className="font-bold">{record.label}: </span>}
         {record.text}
       </p>
-      <TrackRecordBar rate={record.rate} lower={record.lower} upper={record.upper} />
+      {record.rescue !== false && <TrackRecordBar rate={record.rate} lower={record.lower} upper={record.upper} />}
     </div>
   );
 }
