@@ -6,7 +6,7 @@ import { SYMPTOM_IDS } from '../../server/shared/vocabulary';
 import { indexResolvedCase, queryWords } from '../../server/src/modules/cases/search-index';
 import { SYMPTOM_BIT_ORDER, nearSymptomSets, symptomMask, symptomsOfMask } from '../../server/src/modules/cases/similar.service';
 import { similarAnswerSchema } from '../../server/shared/case-schemas';
-import { publishFieldNote } from '../../server/src/modules/library/field-notes';
+import { publishFieldNote as publish, unpublishFieldNote } from '../../server/src/modules/library/field-notes';
 import { makeTestApp, type TestApp } from '../setup/test-app';
 import { JSON_HEADERS, signedIn } from '../factories/sign-in';
 import { createCase, createResolvedCase } from '../factories/cases';
@@ -15,7 +15,17 @@ let t: TestApp;
 beforeAll(() => {
   t = makeTestApp();
 });
+
+/** The field notes this file publishes, taken down again at the end: the library's search test
+ * ranks notes by how rare their words are across the whole shared database. */
+const publishedHere: number[] = [];
+async function publishFieldNote(caseId: number) {
+  publishedHere.push(caseId);
+  return publish(caseId);
+}
+
 afterAll(async () => {
+  for (const id of publishedHere) await unpublishFieldNote(id);
   await t.close();
 });
 
@@ -114,20 +124,20 @@ describe('batches like this', () => {
     const a = await signedIn(t.app, 'grower', `Ottoline ${word}`);
     const b = await signedIn(t.app);
     const mentor = await signedIn(t.app, 'mentor');
-    const rawTitle = `Ottoline ${word}'s FFJ crock smelled of ${word} vinegar`;
+    const rawTitle = `Ottoline ${word}'s FFJ crock smelled of ${word} wine`;
     const caseOfA = await createResolvedCase(a.user.id, {
       stage: 'FFJ',
-      symptoms: ['smell-sour', 'bubbling'],
+      symptoms: ['smell-alcoholic', 'colour-white'],
       title: rawTitle,
-      description: `Ottoline ${word} here: my plum crock fizzed and smelled of vinegar by day four. Mail me at ottoline@example.test.`,
+      description: `Ottoline ${word} here: my plum crock grew a white skin and smelled of wine by day four. Mail me at ottoline@example.test.`,
       summary: 'Too little sugar for ripe plums; sugar added to equal weights and the smell turned sweet again.',
       published: true,
     });
     const note = await publishFieldNote(caseOfA);
     // A published case whose note is not written (yet) is not shown to growers at all.
-    const noteless = await createResolvedCase(mentor.user.id, { stage: 'FFJ', symptoms: ['smell-sour', 'bubbling'], description: `${word} plums fizzing`, published: true });
+    const noteless = await createResolvedCase(mentor.user.id, { stage: 'FFJ', symptoms: ['smell-alcoholic', 'colour-white'], description: `${word} plums with a white skin`, published: true });
 
-    const draft = { stage: 'FFJ', symptoms: ['smell-sour', 'bubbling'], description: `My ${word} plum crock is fizzing and smells of vinegar`, limit: 20 };
+    const draft = { stage: 'FFJ', symptoms: ['smell-alcoholic', 'colour-white'], description: `My ${word} plum crock has a white skin and smells of wine`, limit: 20 };
     const res = await b.browser.post('/api/cases/similar').set(JSON_HEADERS).send(draft);
     expect(res.status).toBe(200);
     const answer = similarAnswerSchema.parse(res.body);
@@ -148,7 +158,7 @@ describe('batches like this', () => {
     for (const item of res.body.items) expect(Object.keys(item)).not.toContain('id');
 
     // The same case on B's own case page.
-    const own = await createCase(b.user.id, { stage: 'FFJ', symptoms: ['smell-sour', 'bubbling'], description: draft.description });
+    const own = await createCase(b.user.id, { stage: 'FFJ', symptoms: ['smell-alcoholic', 'colour-white'], description: draft.description });
     const onPage = await b.browser.get(`/api/cases/${own}/similar?limit=20`);
     expect(onPage.body.items.map((i: { slug?: string }) => i.slug)).toContain(note.slug);
     expect(JSON.stringify(onPage.body)).not.toContain('Ottoline');
@@ -164,7 +174,7 @@ describe('batches like this', () => {
     const { user } = await signedIn(t.app, 'mentor');
     const grower = await signedIn(t.app);
     const word = nonce();
-    const target = await createResolvedCase(user.id, { stage: 'OHN', symptoms: ['smell-sour'], title: `Garlic ${word} extract went cloudy`, description: 'The garlic extract turned cloudy.', published: true });
+    const target = await createResolvedCase(user.id, { stage: 'OHN', symptoms: ['colour-white'], title: `Garlic ${word} extract went cloudy`, description: 'The garlic extract turned cloudy.', published: true });
     await publishFieldNote(target);
     const misspelt = `${word.slice(0, 3)}${word.slice(4)}`;
     const res = await grower.browser.post('/api/cases/similar').set(JSON_HEADERS).send({ stage: 'OHN', description: `garlic ${misspelt} cloudy`, limit: 20 });
@@ -176,8 +186,8 @@ describe('batches like this', () => {
   test('when no limit is given, then at most five come back; over twenty is refused', async () => {
     const { browser, user } = await signedIn(t.app, 'mentor');
     const word = nonce();
-    for (let i = 0; i < 7; i++) await createResolvedCase(user.id, { stage: 'FFJ', symptoms: ['smell-sour'], description: `${word} plums` });
-    const res = await browser.post('/api/cases/similar').set(JSON_HEADERS).send({ stage: 'FFJ', symptoms: ['smell-sour'], description: `${word}` });
+    for (let i = 0; i < 7; i++) await createResolvedCase(user.id, { stage: 'FFJ', symptoms: ['colour-brown'], description: `${word} plums` });
+    const res = await browser.post('/api/cases/similar').set(JSON_HEADERS).send({ stage: 'FFJ', symptoms: ['colour-brown'], description: `${word}` });
     expect(res.body.items).toHaveLength(5);
     expect((await browser.post('/api/cases/similar').set(JSON_HEADERS).send({ stage: 'FFJ', limit: 21 })).status).toBe(400);
     expect((await browser.get(`/api/cases/${res.body.items[0].id}/similar?limit=50`)).status).toBe(400);
