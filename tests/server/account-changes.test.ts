@@ -1,52 +1,10 @@
 // A steward's decision reaching the person's open browser: when an application to mentor is
 // approved, the applicant's socket is told `account:changed` (so the client asks who it is and
 // shows the rounds without a reload) and then dropped, since its rooms were for the old role.
-import { afterAll, afterEach, beforeAll, describe, expect, test } from 'vitest';
-import { io as connectClient, type Socket } from 'socket.io-client';
-import type { ClientToServerEvents, ServerToClientEvents } from '../../server/shared/socket-events';
-import { startServer, type RunningServer } from '../../server/src/index';
-import { TEST_ORIGIN } from '../setup/test-app';
-import { createUser, FACTORY_PASSWORD } from '../factories/users';
+import { describe, expect, test } from 'vitest';
+import { useLiveServer, type Client } from '../setup/live-server';
 
-type Client = Socket<ServerToClientEvents, ClientToServerEvents>;
-
-let server: RunningServer;
-const open: Client[] = [];
-
-beforeAll(async () => {
-  server = await startServer({ env: { ...process.env, PORT: '0', PUBLIC_URL: TEST_ORIGIN }, migrate: false, seedDemo: false, mailIntervalMs: 60_000 });
-});
-afterEach(() => {
-  while (open.length) open.pop()!.disconnect();
-});
-afterAll(async () => {
-  await server.close();
-});
-
-function api(cookie: string | null, method: string, path: string, body?: unknown) {
-  return fetch(`${server.url}${path}`, {
-    method,
-    headers: { 'Content-Type': 'application/json', Origin: server.url, ...(cookie ? { cookie } : {}) },
-    body: body === undefined ? undefined : JSON.stringify(body),
-  });
-}
-
-async function signedIn(role: 'grower' | 'steward') {
-  const user = await createUser({ role });
-  const res = await api(null, 'POST', '/api/auth/login', { email: user.email, password: FACTORY_PASSWORD });
-  expect(res.status).toBe(200);
-  const cookie = res.headers.getSetCookie().find((c) => c.startsWith('sporewell.sid='))!.split(';')[0];
-  return { user, cookie };
-}
-
-function connect(cookie: string): Promise<Client> {
-  const socket: Client = connectClient(server.url, { transports: ['websocket'], reconnection: false, forceNew: true, extraHeaders: { cookie } });
-  open.push(socket);
-  return new Promise((resolve, reject) => {
-    socket.once('connect', () => resolve(socket));
-    socket.once('connect_error', reject);
-  });
-}
+const { api, connect, person } = useLiveServer();
 
 /** What the socket heard, in order, until it was dropped (or the time ran out). */
 function heard(socket: Client, ms = 5000): Promise<string[]> {
@@ -63,8 +21,8 @@ function heard(socket: Client, ms = 5000): Promise<string[]> {
 
 describe('account changes pushed to the browser', () => {
   test("when a steward approves a grower's application to mentor, then the grower's socket hears account:changed, then is dropped, and /me says mentor", async () => {
-    const applicant = await signedIn('grower');
-    const steward = await signedIn('steward');
+    const applicant = await person('grower');
+    const steward = await person('steward');
     const applied = await api(applicant.cookie, 'POST', '/api/mentor-applications', {
       experience: 'Eight springs of bran piles and plant juices on the south allotments, taught at the course.',
       stages: ['IMO3', 'FPJ'],
@@ -87,8 +45,8 @@ describe('account changes pushed to the browser', () => {
   });
 
   test('when a steward sets the role someone already has, then their socket hears nothing and stays', async () => {
-    const grower = await signedIn('grower');
-    const steward = await signedIn('steward');
+    const grower = await person('grower');
+    const steward = await person('steward');
     const socket = await connect(grower.cookie);
     const events = heard(socket, 1500);
     const res = await api(steward.cookie, 'PATCH', `/api/steward/users/${grower.user.id}`, { role: 'grower' });
