@@ -116,3 +116,32 @@ describe('posts stored together', () => {
     }
   });
 });
+
+describe('a case held by another transaction', () => {
+  test('when another transaction holds a case, then posts for other cases are stored at once, and the held case’s posts wait their turn and keep their order', async () => {
+    const grower = await createUser({ role: 'grower' });
+    const held = await createThreadCase({ growerId: grower.id });
+    const free = await createThreadCase({ growerId: grower.id });
+    const sequelize = getSequelize();
+    let release!: () => void;
+    const released = new Promise<void>((resolve) => (release = resolve));
+    let locked!: () => void;
+    const lockTaken = new Promise<void>((resolve) => (locked = resolve));
+    // Stands in for another process's write (or a claim) on the held case.
+    const holder = sequelize.transaction(async (transaction) => {
+      await sequelize.query(`SELECT id FROM cases WHERE id = :id FOR UPDATE`, { replacements: { id: held.id }, transaction });
+      locked();
+      await released;
+    });
+    await lockTaken;
+    const waiting = [post(grower, held.id, 'Held one'), post(grower, held.id, 'Held two')];
+    const quick = await Promise.race([post(grower, free.id, 'Free one'), new Promise<null>((resolve) => setTimeout(() => resolve(null), 3000))]);
+    expect(quick?.message.seq).toBe(2);
+    expect((await messageRows(held.id)).map((m) => m.kind)).toEqual(['system']);
+    release();
+    await holder;
+    const [one, two] = await Promise.all(waiting);
+    expect([one.message.seq, two.message.seq]).toEqual([2, 3]);
+    expect((await messageRows(held.id)).map((m) => m.body)).toEqual(['The grower opened this case.', 'Held one', 'Held two']);
+  });
+});

@@ -8,10 +8,15 @@
 // is live and within its absolute limit; the case exists and the writer may read it; only
 // mentors and stewards (never on their own case) write asides; a clientId already used in the
 // case answers the stored message (or refuses, when someone else used it); an ended case takes
-// no text. The cases are locked in id order (two writes never deadlock each other), their
-// next_seq hands out the seq numbers, and the case fields, the waiting clock and the read
-// marks (the writer's own and those of whoever is watching the case) move with the insert.
-// An acknowledgement is sent only after this statement committed.
+// no text. The cases are locked in id order, their next_seq hands out the seq numbers, and the
+// case fields, the waiting clock and the read marks (the writer's own and those of whoever is
+// watching the case) move with the insert. An acknowledgement is sent only after this
+// statement committed.
+//
+// A write does not wait for a case another transaction holds (another process's write, a
+// claim): it stores the rest, and the posts for that case go in the next write, which waits
+// its turn for them (LockMode). In this process, a case already being written is left for the
+// next write. So one busy case never holds up a whole batch, and posts of a case keep their order.
 //
 // Left to the full transaction in messages.service.ts (the statement answers "slow"): a reply
 // from the grower while the case is over to them (a status change and a system line) and a
@@ -51,9 +56,15 @@ const MAX_IN_FLIGHT = 2;
 /** A deadlock with some other transaction on the cases rows aborts the whole statement, which then runs again. */
 const RETRIES = 3;
 const RETRYABLE = new Set(['40P01', '40001']);
-const STATEMENT_NAME = 'sporewell_thread_write_v1';
+/**
+ * How a write takes its cases' locks. "skip": only the cases nobody else holds right now (a
+ * write of another process, a claim); posts for the others answer "busy" and go again. "wait":
+ * every case, waiting its turn, for posts that were skipped once, so none waits for ever. A
+ * skipping write never waits, and waiting writes lock in id order, so no two writes deadlock.
+ */
+type LockMode = 'skip' | 'wait';
 
-const STATEMENT = `
+const statementText = (mode: LockMode) => `
 WITH input AS (
   SELECT * FROM unnest($1::int[], $2::int[], $3::int[], $4::text[], $5::text[], $6::float8[], $7::text[], $8::text[], $9::text[], $10::text[])
     AS i(ord, case_id, author_id, role, sid, started_after, kind, body, client_id, preview)
@@ -76,7 +87,10 @@ author AS (
 locked AS MATERIALIZED (
   SELECT c.id, c.grower_id, c.mentor_id, c.status, c.next_seq
     FROM cases c WHERE c.id = ANY($2::int[])
-   ORDER BY c.id FOR UPDATE
+   ORDER BY c.id FOR UPDATE${mode === 'skip' ? ' SKIP LOCKED' : ''}
+),
+known AS (
+  SELECT c.id FROM cases c WHERE c.id = ANY($2::int[])
 ),
 existing AS (
   SELECT m.id, m.case_id, m.client_id, m.author_id
@@ -87,6 +101,7 @@ judged AS MATERIALIZED (
          (a.role IN ('mentor', 'steward') AND l.grower_id <> i.author_id AND i.kind = 'text') AS reply,
          CASE
            WHEN a.ord IS NULL THEN 'unauthorized'
+           WHEN l.id IS NULL AND k.id IS NOT NULL THEN 'busy'
            WHEN l.id IS NULL THEN 'not_found'
            WHEN NOT (a.role IN ('mentor', 'steward') OR l.grower_id = i.author_id) THEN 'refused'
            WHEN i.kind = 'aside' AND NOT (a.role IN ('mentor', 'steward') AND l.grower_id <> i.author_id) THEN 'forbidden'
@@ -101,6 +116,7 @@ judged AS MATERIALIZED (
     FROM input i
     LEFT JOIN author a ON a.ord = i.ord
     LEFT JOIN locked l ON l.id = i.case_id
+    LEFT JOIN known k ON k.id = i.case_id
     LEFT JOIN existing e ON e.case_id = i.case_id AND e.client_id = i.client_id
 ),
 fresh AS MATERIALIZED (
@@ -166,12 +182,18 @@ SELECT j.ord, j.outcome, j.grower_id AS "growerId", j.mentor_id AS "mentorId",
      LIMIT 1
   ) d ON true
  ORDER BY j.ord`;
+const STATEMENTS: Record<LockMode, { name: string; text: string }> = {
+  skip: { name: 'sporewell_thread_write_skip_v2', text: statementText('skip') },
+  wait: { name: 'sporewell_thread_write_wait_v2', text: statementText('wait') },
+};
 
 type ResultRow = MessageRow & { ord: number; outcome: string; growerId: number | null; mentorId: number | null };
 
 interface Pending {
   post: QueuedPost;
   key: string;
+  /** how often its case was held by another write when this post's turn came */
+  skipped: number;
   resolve(outcome: WriteOutcome): void;
   reject(error: unknown): void;
 }
@@ -180,17 +202,20 @@ interface RawConnection {
   query(config: { name: string; text: string; values: unknown[] }): Promise<{ rows: ResultRow[] }>;
 }
 
+/** What one statement answered for a post: its outcome, or to go again (its case was busy, or its clientId was just taken). */
+type RowResult = WriteOutcome | 'busy' | 'again';
+
 /** One queue per process: every post of every socket and request goes through it. */
 class MessageWriter {
   private queue: Pending[] = [];
   private inFlight = 0;
-  /** case + clientId of the posts being written: a resend of one waits for it, and then reads as a duplicate */
-  private writing = new Set<string>();
+  /** cases of the writes under way: a later post for one waits for the next write, so posts keep their order and never queue on a lock of this process */
+  private writing = new Map<number, number>();
   private scheduled = false;
 
   write(post: QueuedPost): Promise<WriteOutcome> {
     return new Promise((resolve, reject) => {
-      this.queue.push({ post, key: `${post.caseId}:${post.clientId}`, resolve, reject });
+      this.queue.push({ post, key: `${post.caseId}:${post.clientId}`, skipped: 0, resolve, reject });
       this.schedule();
     });
   }
@@ -207,37 +232,41 @@ class MessageWriter {
 
   private flush(): void {
     while (this.inFlight < MAX_IN_FLIGHT && this.queue.length) {
+      // A case with a post that was skipped before waits for its lock, with all its posts, in order.
+      const patient = new Set(this.queue.filter((p) => p.skipped > 0).map((p) => p.post.caseId));
+      const mode: LockMode = this.queue.some((p) => patient.has(p.post.caseId) && !this.writing.has(p.post.caseId)) ? 'wait' : 'skip';
       const batch: Pending[] = [];
       const keys = new Set<string>();
       const rest: Pending[] = [];
       for (const pending of this.queue) {
-        if (batch.length < MAX_BATCH && !this.writing.has(pending.key) && !keys.has(pending.key)) {
+        const caseId = pending.post.caseId;
+        const fits = batch.length < MAX_BATCH && !this.writing.has(caseId) && patient.has(caseId) === (mode === 'wait') && !keys.has(pending.key);
+        if (fits) {
           batch.push(pending);
           keys.add(pending.key);
         } else rest.push(pending);
       }
       this.queue = rest;
       if (!batch.length) return;
-      for (const key of keys) this.writing.add(key);
+      const cases = [...new Set(batch.map((p) => p.post.caseId))];
+      for (const caseId of cases) this.writing.set(caseId, (this.writing.get(caseId) ?? 0) + 1);
       this.inFlight += 1;
-      void this.run(batch).finally(() => {
-        for (const key of keys) this.writing.delete(key);
+      void this.run(batch, mode).finally(() => {
+        for (const caseId of cases) {
+          const left = this.writing.get(caseId)! - 1;
+          if (left) this.writing.set(caseId, left);
+          else this.writing.delete(caseId);
+        }
         this.inFlight -= 1;
         this.schedule();
       });
     }
   }
 
-  private async run(batch: Pending[]): Promise<void> {
+  private async run(batch: Pending[], mode: LockMode): Promise<void> {
+    let results: (RowResult | 'failed')[];
     try {
-      const outcomes = await writeWithRetries(batch.map((p) => p.post));
-      batch.forEach((p, i) => {
-        const outcome = outcomes[i];
-        // Stored by a concurrent writer between this statement's snapshot and its insert: once
-        // more, and it reads as the duplicate it is.
-        if (outcome === 'again') this.queue.push(p);
-        else p.resolve(outcome);
-      });
+      results = await writeWithRetries(batch.map((p) => p.post), mode);
     } catch (error) {
       if (batch.length === 1 || unavailable(error)) {
         for (const p of batch) p.reject(error);
@@ -245,16 +274,27 @@ class MessageWriter {
       }
       // One bad post must not sink the others: each goes again on its own.
       log.error('thread.write_batch_failed', { posts: batch.length, error: (error as Error).message });
+      results = [];
       for (const p of batch) {
         try {
-          const [outcome] = await writeWithRetries([p.post]);
-          if (outcome === 'again') this.queue.push(p);
-          else p.resolve(outcome);
+          results.push((await writeWithRetries([p.post], 'wait'))[0]);
         } catch (alone) {
           p.reject(alone);
+          results.push('failed');
         }
       }
     }
+    // What goes again goes first, in its order, ahead of what came meanwhile.
+    const again: Pending[] = [];
+    batch.forEach((p, i) => {
+      const result = results[i];
+      if (result === 'failed') return;
+      if (result === 'busy') again.push({ ...p, skipped: p.skipped + 1 });
+      // Stored by a concurrent write between this statement's snapshot and its insert: it reads as the duplicate it is next time.
+      else if (result === 'again') again.push(p);
+      else p.resolve(result);
+    });
+    this.queue.unshift(...again);
   }
 }
 
@@ -263,10 +303,10 @@ function unavailable(error: unknown): boolean {
   return isConnectionError(error) || (error as Error)?.name === 'SequelizeConnectionAcquireTimeoutError';
 }
 
-async function writeWithRetries(posts: QueuedPost[]): Promise<(WriteOutcome | 'again')[]> {
+async function writeWithRetries(posts: QueuedPost[], mode: LockMode): Promise<RowResult[]> {
   for (let attempt = 1; ; attempt += 1) {
     try {
-      return await writeOnce(posts);
+      return await writeOnce(posts, mode);
     } catch (error) {
       const code = (error as { code?: string }).code;
       if (attempt >= RETRIES || !code || !RETRYABLE.has(code)) throw error;
@@ -274,7 +314,7 @@ async function writeWithRetries(posts: QueuedPost[]): Promise<(WriteOutcome | 'a
   }
 }
 
-async function writeOnce(posts: QueuedPost[]): Promise<(WriteOutcome | 'again')[]> {
+async function writeOnce(posts: QueuedPost[], mode: LockMode): Promise<RowResult[]> {
   const caseIds = [...new Set(posts.map((p) => p.caseId))];
   // Whoever has a socket on the case now is sent the post live: their read is marked with it.
   const viewers = viewersOfCases(caseIds);
@@ -302,12 +342,13 @@ async function writeOnce(posts: QueuedPost[]): Promise<(WriteOutcome | 'again')[
   const connection = await manager.getConnection({ type: 'write' });
   let rows: ResultRow[];
   try {
-    ({ rows } = await connection.query({ name: STATEMENT_NAME, text: STATEMENT, values }));
+    ({ rows } = await connection.query({ ...STATEMENTS[mode], values }));
   } finally {
     manager.releaseConnection(connection);
   }
-  return rows.map((row) => {
+  return rows.map((row): RowResult => {
     const outcome = row.outcome;
+    if (outcome === 'busy') return 'busy';
     if (outcome === 'store' || outcome === 'duplicate') {
       if (row.id === null) return 'again';
       const seen = viewers.get(row.caseId) ?? new Set<number>();
