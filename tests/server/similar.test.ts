@@ -170,6 +170,42 @@ describe('batches like this', () => {
     expect(ids(forMentor.body)).toContain(noteless);
   });
 
+  test("when grower B types a word that only grower A's private case text holds (a place the note leaves out), then no note is lifted by it, named for it, or listed in terms", async () => {
+    const place = nonce();
+    const a = await signedIn(t.app, 'grower');
+    const { user: mentor } = await signedIn(t.app, 'mentor');
+    const b = await signedIn(t.app);
+    const caseOfA = await createResolvedCase(a.user.id, {
+      stage: 'WCA',
+      symptoms: ['colour-light-grey'],
+      mentorId: mentor.id,
+      title: 'Calcium extract went grey',
+      description: `The shells soaked by the ${place} pump house went grey.`,
+      summary: 'Grey from unwashed shells; rinsed and roasted again, it cleared.',
+      published: true,
+    });
+    await getSequelize().query(`UPDATE cases SET redact_terms = $2 WHERE id = $1`, { bind: [caseOfA, [place]] });
+    const note = await publishFieldNote(caseOfA);
+    const [entry] = await getSequelize().query<{ text: string }>(`SELECT title || ' ' || summary || ' ' || body AS text FROM library_entries WHERE slug = $1`, {
+      bind: [note.slug],
+      type: QueryTypes.SELECT,
+    });
+    expect(entry.text.toLowerCase()).not.toContain(place); // the note leaves the place out
+
+    // Nothing but the private word in common: no stage, no symptoms.
+    const probe = await b.browser.post('/api/cases/similar').set(JSON_HEADERS).send({ description: `${place} ${place}`, limit: 20 });
+    expect(probe.status).toBe(200);
+    expect(probe.body.items.map((i: { slug: string }) => i.slug)).not.toContain(note.slug);
+    expect(JSON.stringify(probe.body)).not.toContain(place);
+
+    // With the structure in common the note may be shown, but never for the private word.
+    const near = await b.browser.post('/api/cases/similar').set(JSON_HEADERS).send({ stage: 'WCA', symptoms: ['colour-light-grey'], description: `${place} shells grey`, limit: 20 });
+    const shown = near.body.items.find((i: { slug: string }) => i.slug === note.slug);
+    expect(shown).toBeDefined();
+    expect(JSON.stringify(near.body)).not.toContain(place);
+    expect(shown.reasons.join(' ')).toMatch(/Mentions .*(shells|grey)/);
+  });
+
   test('when a grower misspells a word, then the reasons name it as they typed it, and no reading of it from other cases is sent', async () => {
     const { user } = await signedIn(t.app, 'mentor');
     const grower = await signedIn(t.app);

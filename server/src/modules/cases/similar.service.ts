@@ -462,29 +462,43 @@ interface NoteRow {
 }
 
 /**
- * A grower's view: the same ranking over published cases only, each shown as its field note,
- * read from the library's anonymised copy; no case id, title or text of another grower leaves
- * the server. The words named in the reasons and `terms` are the grower's own as typed: a
- * reading of a misspelt word comes from every resolved case's words, published or not.
+ * A grower's view: published cases only, each shown as its field note, read from the library's
+ * anonymised copy; no case id, title or text of another grower leaves the server. The words are
+ * credited from the note's own text, not the case's: a name or place the note leaves out must not
+ * lift a note, or be named in its reasons, or a grower could probe another grower's private text
+ * by typing it. For the same reason the words named (reasons, `terms`) are the grower's own as
+ * typed, and `terms` lists only words some shown note holds: a reading of a misspelt word comes
+ * from every resolved case's words, published or not.
  * (A published case whose note is not written yet, e.g. just after start-up, is left out.)
  */
 export async function findSimilarNotes(request: Omit<SimilarRequest, 'publishedOnly'>): Promise<SimilarAnswer> {
-  const { units, ranked } = await rankSimilar({ ...request, publishedOnly: true }, 'typed');
-  const notes = ranked.length
-    ? await preparedQuery<NoteRow>(
-        `SELECT case_id AS "caseId", slug, title, summary, symptoms, cause, remedy, outcome
-           FROM library_entries WHERE kind = 'note' AND case_id = ANY($ids::int[])`,
-        { ids: ranked.map((r) => r.candidate.id) },
+  const withPublished = { ...request, publishedOnly: true };
+  const resolved = await resolvedCaseCount();
+  const units = await readUnits(request.text, resolved);
+  const candidates = await findCandidates(withPublished, units);
+  const alternatives = flattenAlternatives(units);
+  const notes = candidates.length
+    ? await preparedQuery<NoteRow & { matched: number[] | null }>(
+        `SELECT e.case_id AS "caseId", e.slug, e.title, e.summary, e.symptoms, e.cause, e.remedy, e.outcome,
+                ARRAY(SELECT a.k - 1
+                        FROM unnest($altTerms::text[]) WITH ORDINALITY AS a(term, k), to_tsquery('english', a.term) AS q
+                       WHERE numnode(q) > 0 AND e.search @@ q ORDER BY a.k) AS matched
+           FROM library_entries e WHERE e.kind = 'note' AND e.case_id = ANY($ids::int[])`,
+        { ids: candidates.map((c) => c.id), altTerms: alternatives.map((a) => a.term) },
       )
     : [];
   const byCase = new Map(notes.map((row) => [row.caseId, row]));
-  const items = ranked.flatMap((r): SimilarNoteItem[] => {
-    const note = byCase.get(r.candidate.id);
-    if (!note) return [];
-    const { caseId: _caseId, ...shown } = note;
-    return [{ kind: 'note', ...shown, stage: r.candidate.stage, score: rounded(r.score), reasons: r.reasons }];
+  const public_ = candidates.flatMap((c) => {
+    const note = byCase.get(c.id);
+    return note ? [{ ...c, matched: note.matched ?? [] }] : [];
   });
-  return { items, terms: units.filter((u) => u.term === u.word).map((u) => ({ word: u.word, term: u.term })) };
+  const ranked = rankCandidates(withPublished, units, public_, 'typed');
+  const credited = new Set(ranked.flatMap((r) => r.candidate.matched.map((i) => alternatives[i]?.unit)));
+  const items = ranked.map((r): SimilarNoteItem => {
+    const { caseId: _caseId, matched: _matched, ...shown } = byCase.get(r.candidate.id)!;
+    return { kind: 'note', ...shown, stage: r.candidate.stage, score: rounded(r.score), reasons: r.reasons };
+  });
+  return { items, terms: units.flatMap((u, unit) => (credited.has(unit) ? [{ word: u.word, term: u.word }] : [])) };
 }
 
 /** Who sees what: growers the field notes, mentors and stewards the cases. */
