@@ -1,33 +1,128 @@
 // Sessions live in PostgreSQL (connect-pg-simple; its table comes from a migration). The same
 // middleware serves Express and the socket.io handshake.
+//
+// What a signed-in request costs the database:
+// - reading: the session row and its user in one statement (session-reader.ts), shared by every
+//   request that asked in the same turn of the event loop, and never older than the request: sign-out, expiry, a disabled account, a role change or a
+//   new password count from the next request, on every process. passport's deserializeUser takes
+//   the user from that read (auth/passport.ts) rather than reading it again.
+// - touching: express-session would UPDATE the row's expiry on every request (rolling idle
+//   timeout). The store writes it only when the stored expiry has fallen more than
+//   `touchEveryMs` behind the one the request asks for, so an active session costs one write a
+//   minute. The idle timeout still holds: the stored expiry is never earlier than
+//   (last request + idle limit − touchEveryMs), i.e. an idle session ends at most that much
+//   before the limit and never after it. The cookie still rolls on every answer.
 import connectPgSimple from 'connect-pg-simple';
 import session from 'express-session';
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler } from 'express';
 import pg from 'pg';
 import type { Config } from '../config/env';
+import type { UserRecord } from '../modules/users/users.repository';
+import { SessionReader, type SessionRead } from './session-reader';
 
 export const SESSION_COOKIE = 'sporewell.sid';
+
+/** The most the stored expiry may lag behind an active session's rolling one. */
+export const TOUCH_EVERY_MS = 60_000;
+
+export interface ChangeWatch {
+  /**
+   * The change count (session-reader.ts) in the snapshot this request's session was read in,
+   * after the request arrived; undefined when its session was not read that way.
+   */
+  seenBy(req: Request): number | undefined;
+}
 
 export interface SessionKit {
   middleware: RequestHandler;
   pool: pg.Pool;
+  /** for caches that must never answer with data older than the request (the rounds pages) */
+  changes: ChangeWatch;
+  reader: SessionReader;
   close(): Promise<void>;
 }
 
+const PgStore = connectPgSimple(session);
+const LOADED = Symbol('sporewell.sessionRead');
+
+type StoredSession = session.SessionData & { [LOADED]?: SessionRead };
+
+/** What the store read for a request: its user (for deserializeUser) and when the row expires. */
+const READ = Symbol('sporewell.sessionReadOfRequest');
+type WithRead = { [READ]?: SessionRead };
+
+/** The user read with this request's session, or undefined when it was not read that way. */
+export function sessionUserOf(req: Request): UserRecord | null | undefined {
+  return (req as WithRead)[READ]?.user;
+}
+
+class SporewellStore extends PgStore {
+  readonly #reader: SessionReader;
+  readonly #touchEveryMs: number;
+
+  constructor(options: ConstructorParameters<typeof PgStore>[0], reader: SessionReader, touchEveryMs: number) {
+    super(options);
+    this.#reader = reader;
+    this.#touchEveryMs = touchEveryMs;
+  }
+
+  override get(sid: string, callback: (error: unknown, session?: session.SessionData | null) => void): void {
+    this.#reader.read(sid, (error, read) => {
+      if (error) return callback(error);
+      if (!read) return callback(null, null);
+      let stored: StoredSession;
+      try {
+        stored = JSON.parse(read.sess) as StoredSession;
+      } catch (parseError) {
+        return callback(parseError);
+      }
+      // Symbol keys stay out of express-session's copy and out of its change hash.
+      stored[LOADED] = read;
+      callback(null, stored);
+    });
+  }
+
+  override createSession(req: Request, stored: StoredSession): session.Session & Partial<session.SessionData> {
+    const read = stored[LOADED];
+    if (read) (req as WithRead)[READ] = read;
+    return super.createSession(req, stored);
+  }
+
+  override touch(sid: string, sess: session.SessionData, callback?: (error?: unknown) => void): void {
+    // express-session hands over its Session object, which knows its request.
+    const read = (sess as unknown as { req?: WithRead }).req?.[READ];
+    const expires = sess.cookie?.expires;
+    const wanted = expires instanceof Date ? expires.getTime() : expires ? new Date(expires).getTime() : NaN;
+    if (read && Number.isFinite(wanted) && read.expiresAt >= wanted - this.#touchEveryMs) {
+      // Called back at once: express-session then writes the answer in one piece.
+      callback?.();
+      return;
+    }
+    super.touch(sid, sess, (error?: unknown) => {
+      if (!error && read && Number.isFinite(wanted)) read.expiresAt = wanted;
+      callback?.(error);
+    });
+  }
+}
+
 export function createSessionKit(config: Config): SessionKit {
-  const PgStore = connectPgSimple(session);
   const pool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 10, application_name: 'sporewell-sessions' });
   // A dropped idle connection (database restart) must not crash the process.
   pool.on('error', () => undefined);
+  const reader = new SessionReader(pool);
   const idleMs = config.SESSION_IDLE_MINUTES * 60_000;
-  const store = new PgStore({
-    pool,
-    tableName: 'session',
-    createTableIfMissing: false,
-    ttl: Math.ceil(idleMs / 1000),
-    pruneSessionInterval: config.NODE_ENV === 'test' ? false : 15 * 60,
-    errorLog: () => undefined,
-  });
+  const store = new SporewellStore(
+    {
+      pool,
+      tableName: 'session',
+      createTableIfMissing: false,
+      ttl: Math.ceil(idleMs / 1000),
+      pruneSessionInterval: config.NODE_ENV === 'test' ? false : 15 * 60,
+      errorLog: () => undefined,
+    },
+    reader,
+    Math.min(TOUCH_EVERY_MS, Math.floor(idleMs / 10)),
+  );
   const middleware = session({
     name: SESSION_COOKIE,
     secret: config.SESSION_SECRET,
@@ -44,9 +139,12 @@ export function createSessionKit(config: Config): SessionKit {
       path: '/',
     },
   });
+  const changes: ChangeWatch = { seenBy: (req) => (req as WithRead)[READ]?.changes };
   return {
     middleware,
     pool,
+    changes,
+    reader,
     async close() {
       store.close();
       await pool.end().catch(() => undefined);

@@ -1,5 +1,7 @@
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
+import type { Request } from 'express';
+import { sessionUserOf } from '../../lib/session';
 import { usersRepository } from '../users/users.repository';
 import { authenticate } from './auth.service';
 
@@ -17,8 +19,12 @@ export function configurePassport(): typeof passport {
     }),
   );
   passport.serializeUser((user, done) => done(null, user.id));
-  // Loaded fresh on every request, so a role change or a disabled account takes effect at once.
-  passport.deserializeUser((id: number, done) => {
+  // Fresh on every request, so a role change or a disabled account takes effect at once: the
+  // session store reads the user together with the session row (lib/session.ts); only a
+  // session that came some other way is looked up here.
+  passport.deserializeUser((req: Request, id: number, done: (error: unknown, user?: Express.User | false) => void) => {
+    const read = sessionUserOf(req);
+    if (read !== undefined && (read === null || read.id === Number(id))) return done(null, read && !read.disabled ? read : false);
     usersRepository.findById(Number(id)).then(
       (user) => done(null, user && !user.disabled ? user : false),
       (error) => done(error),
