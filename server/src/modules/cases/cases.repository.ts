@@ -18,6 +18,7 @@ import { getSequelize } from '../../db/sequelize';
 import type { BatchCheckResult, BatchRisk, SugarTypeId } from '../../../shared/batch-check';
 import type { CaseDetail, CaseListItem, CaseListQuery, PhotoPurpose } from '../../../shared/case-schemas';
 import type { WeightColumns } from '../batches/batches.repository';
+import { preparedQuery } from './prepared-query';
 import { symptomMask } from './similar.service';
 import { OPEN_STATUSES, type CaseStatus } from '../../../shared/case-status';
 import { URGENCY_WEIGHTS, type UrgencyLevel } from '../../../shared/urgency';
@@ -276,7 +277,8 @@ export const casesRepository = {
 
   /**
    * The rounds list (and a grower's own list). `growerId` limits to one grower's cases,
-   * `mentorId` to the cases a mentor claimed.
+   * `mentorId` to the cases a mentor claimed. Both statements are prepared (prepared-query.ts):
+   * planning the page statement cost more than running it on 500 open cases.
    */
   async list(filter: {
     growerId?: number;
@@ -287,56 +289,53 @@ export const casesRepository = {
   }): Promise<{ rows: CaseListRow[]; total: number }> {
     const { query } = filter;
     const where: string[] = [];
-    const replacements: Record<string, unknown> = {};
+    const values: Record<string, unknown> = {};
     if (filter.growerId !== undefined) {
-      where.push('c.grower_id = :growerId');
-      replacements.growerId = filter.growerId;
+      where.push('c.grower_id = $growerId');
+      values.growerId = filter.growerId;
     }
     if (filter.mentorId !== undefined) {
-      where.push('c.mentor_id = :mentorId');
-      replacements.mentorId = filter.mentorId;
+      where.push('c.mentor_id = $mentorId');
+      values.mentorId = filter.mentorId;
     }
     if (filter.statuses) {
       // Spelled out when it is exactly the open set, so the partial indexes on open cases apply.
       const open = filter.statuses.length === OPEN_STATUSES.length && OPEN_STATUSES.every((s) => filter.statuses!.includes(s));
       if (open) where.push(`c.status IN ('awaiting_mentor', 'in_conversation', 'over_to_grower')`);
       else {
-        where.push('c.status IN (:statuses)');
-        replacements.statuses = filter.statuses;
+        where.push('c.status = ANY($statuses::text[])');
+        values.statuses = [...filter.statuses];
       }
     }
     if (query.stage?.length) {
-      where.push('c.stage IN (:stages)');
-      replacements.stages = query.stage;
+      where.push('c.stage = ANY($stages::text[])');
+      values.stages = [...query.stage];
     }
     if (query.symptom?.length) {
       // "has any of these", on the symptom mask (migration 0101), which the rounds index holds
-      where.push('(c.symptom_bits & :symptomMask) <> 0');
-      replacements.symptomMask = symptomMask(query.symptom);
+      where.push('(c.symptom_bits & $symptomMask::int) <> 0');
+      values.symptomMask = symptomMask(query.symptom);
     }
     if (query.minAgeHours !== undefined) {
-      where.push(`c.opened_at <= now() - make_interval(secs => :minAge)`);
-      replacements.minAge = query.minAgeHours * 3600;
+      where.push(`c.opened_at <= now() - make_interval(secs => $minAge::float8)`);
+      values.minAge = query.minAgeHours * 3600;
     }
     if (query.maxAgeHours !== undefined) {
-      where.push(`c.opened_at >= now() - make_interval(secs => :maxAge)`);
-      replacements.maxAge = query.maxAgeHours * 3600;
+      where.push(`c.opened_at >= now() - make_interval(secs => $maxAge::float8)`);
+      values.maxAge = query.maxAgeHours * 3600;
     }
     const whereSql = where.length ? `WHERE ${where.join(' AND ')}` : '';
     const order =
       query.sort === 'oldest' ? 'c.opened_at ASC, c.id ASC' : query.sort === 'newest' ? 'c.opened_at DESC, c.id DESC' : `${EFFECTIVE_URGENCY_SQL} DESC, c.opened_at ASC, c.id ASC`;
-    replacements.limit = query.pageSize;
-    replacements.offset = (query.page - 1) * query.pageSize;
     const hidden = filter.visibility.hidden ? '' : 'AND NOT lm.hidden';
-    const sequelize = getSequelize();
     const [rows, count] = await Promise.all([
-      sequelize.query<CaseListRow>(
+      preparedQuery<CaseListRow>(
         // The page is chosen first, so the last message is looked up for its rows only.
         `WITH page AS (
            SELECT c.id, row_number() OVER (ORDER BY ${order}) AS ord
              FROM cases c ${whereSql}
             ORDER BY ${order}
-            LIMIT :limit OFFSET :offset
+            LIMIT $limit::int OFFSET $offset::int
          )
          SELECT c.id, c.title, c.stage, c.symptoms, c.status, c.risk,
                 ${EFFECTIVE_URGENCY_SQL} AS urgency, ${urgencyLevelSql(EFFECTIVE_URGENCY_SQL)} AS "urgencyLevel",
@@ -353,9 +352,9 @@ export const casesRepository = {
               ORDER BY lm.seq DESC LIMIT 1
            ) last ON true
           ORDER BY p.ord`,
-        { replacements, type: QueryTypes.SELECT },
+        { ...values, limit: query.pageSize, offset: (query.page - 1) * query.pageSize },
       ),
-      sequelize.query<{ total: number }>(`SELECT count(*)::int AS total FROM cases c ${whereSql}`, { replacements, type: QueryTypes.SELECT }),
+      preparedQuery<{ total: number }>(`SELECT count(*)::int AS total FROM cases c ${whereSql}`, values),
     ]);
     return { rows, total: count[0].total };
   },

@@ -19,6 +19,43 @@ export function visibilityOf(user: Reader): Visibility {
   return { asides: seesAsides(user as Express.User), hidden: user.role === 'steward' };
 }
 
+/**
+ * Everything a list page depends on besides the data: which cases (a grower's own, a mentor's
+ * claimed ones, or all), which statuses and filters, and which messages the reader may see as
+ * the latest line. Two readers with the same filter get the same page, so it is the key the
+ * rounds pages are shared by (rounds-page.ts): mentors share theirs, stewards (who also see
+ * hidden messages) theirs, and each grower has their own.
+ */
+export interface CaseListFilter {
+  growerId?: number;
+  mentorId?: number;
+  statuses: readonly CaseStatus[] | null;
+  query: CaseListQuery;
+  visibility: Visibility;
+}
+
+export interface CaseListPage {
+  items: CaseListItem[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
+export function listFilterOf(user: Reader, query: CaseListQuery): CaseListFilter {
+  const staff = user.role === 'mentor' || user.role === 'steward';
+  let statuses: readonly CaseStatus[] | null;
+  if (query.status === 'all') statuses = null;
+  else if (query.status?.length) statuses = query.status;
+  else statuses = staff ? OPEN_STATUSES : null;
+  return {
+    ...(staff ? {} : { growerId: user.id }),
+    ...(staff && query.mine ? { mentorId: user.id } : {}),
+    statuses,
+    query,
+    visibility: visibilityOf(user),
+  };
+}
+
 export interface CaseIntake {
   growerId: number;
   batchId: number | null;
@@ -179,19 +216,10 @@ export const casesService = {
     return detailOf(row, photos, user);
   },
 
-  async list(user: Reader, query: CaseListQuery) {
-    const staff = user.role === 'mentor' || user.role === 'steward';
-    let statuses: readonly CaseStatus[] | null;
-    if (query.status === 'all') statuses = null;
-    else if (query.status?.length) statuses = query.status;
-    else statuses = staff ? OPEN_STATUSES : null;
-    const { rows, total } = await casesRepository.list({
-      growerId: staff ? undefined : user.id,
-      mentorId: staff && query.mine ? user.id : undefined,
-      statuses,
-      query,
-      visibility: visibilityOf(user),
-    });
+  /** A list page (the rounds, or a grower's own list) for a filter from `listFilterOf`. */
+  async listPage(filter: CaseListFilter): Promise<CaseListPage> {
+    const { query } = filter;
+    const { rows, total } = await casesRepository.list(filter);
     const items: CaseListItem[] = rows.map((r) => ({
       id: r.id,
       title: r.title,
