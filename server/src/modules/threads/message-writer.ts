@@ -22,14 +22,18 @@
 // from the grower while the case is over to them (a status change and a system line) and a
 // mentor's reply while the grower is away (the reply mail and its 10-minute window). Posts
 // with photos never come here.
-import { getSequelize, isConnectionError } from '../../db/sequelize';
+import pg from 'pg';
+import { isConnectionError } from '../../db/sequelize';
 import type { Role } from '../../../shared/case-status';
 import type { ThreadMessage } from '../../../shared/socket-events';
+import { AppError } from '../../lib/errors';
 import { log } from '../../lib/logger';
 import { toMessage, type MessageRow } from './messages.repository';
 import { viewersOfCases } from './thread-events';
 
 export interface QueuedPost {
+  /** the database the post goes to (the process's DATABASE_URL) */
+  databaseUrl: string;
   caseId: number;
   author: { id: number; role: Role };
   /** a socket's session, re-checked by the statement; null over HTTP, whose request has just read it */
@@ -72,11 +76,13 @@ WITH input AS (
 viewer AS (
   SELECT DISTINCT case_id, user_id FROM unnest($11::int[], $12::int[]) AS v(case_id, user_id)
 ),
+-- Every lookup below goes by index (through the arrays, or one probe per post), whatever the
+-- planner guesses of the arrays' lengths: users, sessions and messages are far larger than a write.
 author AS (
   SELECT i.ord, u.display_name, u.role
     FROM input i
-    JOIN users u ON u.id = i.author_id AND NOT u.disabled AND u.role = i.role
-    LEFT JOIN LATERAL (SELECT s.expire, s.sess::jsonb AS sess FROM session s WHERE i.sid IS NOT NULL AND s.sid = i.sid) s ON true
+    JOIN (SELECT id, display_name, role FROM users WHERE id = ANY($3::int[]) AND NOT disabled) u ON u.id = i.author_id AND u.role = i.role
+    LEFT JOIN (SELECT sid, expire, sess::jsonb AS sess FROM session WHERE sid = ANY($5::text[])) s ON s.sid = i.sid
    WHERE i.sid IS NULL
       OR (s.expire > now() AND s.sess -> 'passport' ->> 'user' = u.id::text
           AND ((s.sess ->> 'startedAt') IS NULL OR (s.sess ->> 'startedAt') !~ '^[0-9]+(\\.[0-9]+)?$'
@@ -93,8 +99,9 @@ known AS (
   SELECT c.id FROM cases c WHERE c.id = ANY($2::int[])
 ),
 existing AS (
-  SELECT m.id, m.case_id, m.client_id, m.author_id
-    FROM messages m JOIN input i ON m.case_id = i.case_id AND m.client_id = i.client_id
+  SELECT e.id, i.case_id, i.client_id, e.author_id
+    FROM input i
+    JOIN LATERAL (SELECT m.id, m.author_id FROM messages m WHERE m.case_id = i.case_id AND m.client_id = i.client_id LIMIT 1) e ON true
 ),
 judged AS MATERIALIZED (
   SELECT i.*, l.grower_id, l.mentor_id, l.next_seq, e.id AS existing_id, a.display_name AS author_name,
@@ -198,20 +205,38 @@ interface Pending {
   reject(error: unknown): void;
 }
 
-interface RawConnection {
-  query(config: { name: string; text: string; values: unknown[] }): Promise<{ rows: ResultRow[] }>;
-}
-
 /** What one statement answered for a post: its outcome, or to go again (its case was busy, or its clientId was just taken). */
 type RowResult = WriteOutcome | 'busy' | 'again';
 
-/** One queue per process: every post of every socket and request goes through it. */
+/**
+ * One queue per database: every post of every socket and request goes through it. It has
+ * connections of its own, as many as its writes under way: a post never waits behind HTTP
+ * requests for a connection of the shared pool, and its statements stay prepared, on a generic
+ * plan from the first write (the arrays' lengths are all a custom plan would learn).
+ */
 class MessageWriter {
+  private readonly pool: pg.Pool;
   private queue: Pending[] = [];
   private inFlight = 0;
   /** cases of the writes under way: a later post for one waits for the next write, so posts keep their order and never queue on a lock of this process */
   private writing = new Map<number, number>();
   private scheduled = false;
+
+  constructor(databaseUrl: string) {
+    this.pool = new pg.Pool({
+      connectionString: databaseUrl,
+      max: MAX_IN_FLIGHT,
+      idleTimeoutMillis: 60_000,
+      connectionTimeoutMillis: 5_000,
+      allowExitOnIdle: true,
+      application_name: 'sporewell-thread-writer',
+      options: '-c plan_cache_mode=force_generic_plan',
+    });
+    // An idle connection lost (a database restart) is an 'error' event, which unheard would end the process.
+    this.pool.on('error', (error) => {
+      if (!isConnectionError(error)) log.error('thread.writer_connection_error', { error: error.message });
+    });
+  }
 
   write(post: QueuedPost): Promise<WriteOutcome> {
     return new Promise((resolve, reject) => {
@@ -266,9 +291,13 @@ class MessageWriter {
   private async run(batch: Pending[], mode: LockMode): Promise<void> {
     let results: (RowResult | 'failed')[];
     try {
-      results = await writeWithRetries(batch.map((p) => p.post), mode);
+      results = await writeWithRetries(this.pool, batch.map((p) => p.post), mode);
     } catch (error) {
-      if (batch.length === 1 || unavailable(error)) {
+      if (unavailable(error)) {
+        for (const p of batch) p.reject(databaseUnavailable());
+        return;
+      }
+      if (batch.length === 1) {
         for (const p of batch) p.reject(error);
         return;
       }
@@ -277,9 +306,9 @@ class MessageWriter {
       results = [];
       for (const p of batch) {
         try {
-          results.push((await writeWithRetries([p.post], 'wait'))[0]);
+          results.push((await writeWithRetries(this.pool, [p.post], 'wait'))[0]);
         } catch (alone) {
-          p.reject(alone);
+          p.reject(unavailable(alone) ? databaseUnavailable() : alone);
           results.push('failed');
         }
       }
@@ -298,15 +327,20 @@ class MessageWriter {
   }
 }
 
-/** The database is away or every connection is busy: the same would happen to each post alone. */
+/** The database is away (or cannot be reached within the connect timeout): the same would happen to each post alone. */
 function unavailable(error: unknown): boolean {
-  return isConnectionError(error) || (error as Error)?.name === 'SequelizeConnectionAcquireTimeoutError';
+  return isConnectionError(error) || /timeout exceeded when trying to connect/.test((error as Error)?.message ?? '');
 }
 
-async function writeWithRetries(posts: QueuedPost[], mode: LockMode): Promise<RowResult[]> {
+/** What the error handler answers for an unreachable database: 503 with Retry-After, `database_unavailable`. */
+function databaseUnavailable(): AppError {
+  return new AppError(503, 'database_unavailable', 'Sporewell cannot reach its database just now. Try again in a few seconds.', undefined, { 'Retry-After': '5' });
+}
+
+async function writeWithRetries(pool: pg.Pool, posts: QueuedPost[], mode: LockMode): Promise<RowResult[]> {
   for (let attempt = 1; ; attempt += 1) {
     try {
-      return await writeOnce(posts, mode);
+      return await writeOnce(pool, posts, mode);
     } catch (error) {
       const code = (error as { code?: string }).code;
       if (attempt >= RETRIES || !code || !RETRYABLE.has(code)) throw error;
@@ -314,7 +348,7 @@ async function writeWithRetries(posts: QueuedPost[], mode: LockMode): Promise<Ro
   }
 }
 
-async function writeOnce(posts: QueuedPost[], mode: LockMode): Promise<RowResult[]> {
+async function writeOnce(pool: pg.Pool, posts: QueuedPost[], mode: LockMode): Promise<RowResult[]> {
   const caseIds = [...new Set(posts.map((p) => p.caseId))];
   // Whoever has a socket on the case now is sent the post live: their read is marked with it.
   const viewers = viewersOfCases(caseIds);
@@ -335,17 +369,7 @@ async function writeOnce(posts: QueuedPost[], mode: LockMode): Promise<RowResult
     viewerCases,
     viewerUsers,
   ];
-  const manager = getSequelize().connectionManager as unknown as {
-    getConnection(options: { type: 'write' }): Promise<RawConnection>;
-    releaseConnection(connection: RawConnection): void;
-  };
-  const connection = await manager.getConnection({ type: 'write' });
-  let rows: ResultRow[];
-  try {
-    ({ rows } = await connection.query({ ...STATEMENTS[mode], values }));
-  } finally {
-    manager.releaseConnection(connection);
-  }
+  const { rows } = await pool.query<ResultRow>({ ...STATEMENTS[mode], values });
   return rows.map((row): RowResult => {
     const outcome = row.outcome;
     if (outcome === 'busy') return 'busy';
@@ -364,9 +388,11 @@ async function writeOnce(posts: QueuedPost[], mode: LockMode): Promise<RowResult
   });
 }
 
-const writer = new MessageWriter();
+const writers = new Map<string, MessageWriter>();
 
 /** Stores one post (with whatever else is waiting); resolves once it is committed, or says why not. */
 export function writeMessage(post: QueuedPost): Promise<WriteOutcome> {
+  let writer = writers.get(post.databaseUrl);
+  if (!writer) writers.set(post.databaseUrl, (writer = new MessageWriter(post.databaseUrl)));
   return writer.write(post);
 }

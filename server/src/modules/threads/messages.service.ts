@@ -72,6 +72,7 @@ const THREAD_CLOSED = 'This case has ended, so its thread takes no new messages.
 export async function postMessage(ctx: AppContext, user: Express.User, caseId: number, input: PostInput, via: { sid?: string } = {}): Promise<PostResult> {
   if (!input.photoIds?.length) {
     const written = await writeMessage({
+      databaseUrl: ctx.config.DATABASE_URL,
       caseId,
       author: { id: user.id, role: user.role },
       sid: via.sid ?? null,
