@@ -6,27 +6,18 @@ import { cx } from '../../../components/ui/cx';
 import { useUser } from '../../../features/auth/api/get-me';
 import { routeIdOf } from '../../../features/batches/lib/route-id';
 import { caseQueryOptions } from '../../../features/cases/api/get-case';
-import { similarToCaseQueryOptions, useSimilarToCase } from '../../../features/cases/api/get-similar-cases';
+import { useSimilarToCase } from '../../../features/cases/api/get-similar-cases';
 import { AddCasePhotos } from '../../../features/cases/components/add-case-photos';
 import { CaseHeader } from '../../../features/cases/components/case-header';
 import { CasePhotos } from '../../../features/cases/components/case-photos';
 import { SimilarCasesList } from '../../../features/cases/components/similar-cases-list';
-import { closingQueryOptions } from '../../../features/closing/api/get-closing';
-import { threadQueryOptions } from '../../../features/threads/api/get-thread';
 import { CaseThread } from '../../../features/threads/components/case-thread';
 import { CloseCasePanel } from '../../../features/closing/components/close-case-panel';
 import { RecoveryPrompt } from '../../../features/closing/components/recovery-prompt';
 
 export const clientLoader = (queryClient: QueryClient) => async ({ params }: LoaderFunctionArgs) => {
-  const id = routeIdOf(params.id);
   // Someone who may not read the case gets a 404 from the server, and the page says so.
-  const detail = queryClient.ensureQueryData(caseQueryOptions(id));
-  // The rest of the page is asked for together with the case rather than once the page has
-  // rendered, so it usually comes with the first render instead of a round trip later.
-  void queryClient.prefetchQuery(closingQueryOptions(id));
-  void queryClient.prefetchQuery(threadQueryOptions(id));
-  void queryClient.prefetchQuery(similarToCaseQueryOptions(id));
-  await detail;
+  await queryClient.ensureQueryData(caseQueryOptions(routeIdOf(params.id)));
   return null;
 };
 
