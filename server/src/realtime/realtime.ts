@@ -11,6 +11,7 @@ import type { AppContext } from '../context';
 import { getSequelize } from '../db/sequelize';
 import { log } from '../lib/logger';
 import { sessionEvents } from '../lib/session-events';
+import { warmMessageWriter } from '../modules/threads/message-writer';
 import { messagesRepository } from '../modules/threads/messages.repository';
 import { addThreadPublisher, type PublishOptions, type ThreadChange, type ThreadPublisher } from '../modules/threads/thread-events';
 import { usersRepository } from '../modules/users/users.repository';
@@ -43,8 +44,8 @@ export function attachRealtime(httpServer: http.Server, ctx: AppContext, options
   });
   const fanout: Fanout | null = options.fanoutDatabaseUrl ? attachFanout(io, options.fanoutDatabaseUrl) : null;
   const viewers = trackViewers(io);
-  // Once this process hears the others, it asks who is on which case there.
-  const ready = (fanout?.ready ?? Promise.resolve()).then(() => viewers.hello());
+  // Once this process hears the others, it asks who is on which case there; the first posts find the thread's writer ready.
+  const ready = Promise.all([(fanout?.ready ?? Promise.resolve()).then(() => viewers.hello()), warmMessageWriter(ctx.config.DATABASE_URL)]).then(() => undefined);
 
   // The session is read on the handshake request only (later polling requests carry the
   // engine's sid); the person behind it is then loaded by the middleware below.

@@ -53,8 +53,8 @@ export type WriteOutcome =
 /** Why a post was not stored here: refused (to be answered as such), or "slow" for the full transaction. */
 export type Refusal = 'unauthorized' | 'not_found' | 'refused' | 'forbidden' | 'taken' | 'closed' | 'slow';
 
-/** Most posts one statement takes; more wait for the next. */
-const MAX_BATCH = 200;
+/** Most posts one statement takes; more wait for the next. A statement costs about 1.5 ms of database CPU plus 0.1 ms a post. */
+const MAX_BATCH = 500;
 /** Writes under way at once. Two keep the disk busy (one flushes while the next is built) without thinning the batches. */
 const MAX_IN_FLIGHT = 2;
 /** A deadlock with some other transaction on the cases rows aborts the whole statement, which then runs again. */
@@ -238,6 +238,29 @@ class MessageWriter {
     });
   }
 
+  /**
+   * Opens the connections and prepares both statements (plan included) in a transaction that is
+   * rolled back, so the first posts after start do not pay for it. Never throws.
+   */
+  async warm(): Promise<void> {
+    const empty = Array.from({ length: 12 }, () => []);
+    await Promise.all(
+      Array.from({ length: MAX_IN_FLIGHT }, async () => {
+        let client: pg.PoolClient | null = null;
+        try {
+          client = await this.pool.connect();
+          await client.query('BEGIN');
+          for (const statement of Object.values(STATEMENTS)) await client.query({ ...statement, values: empty });
+          await client.query('ROLLBACK');
+          client.release();
+        } catch (error) {
+          client?.release(error as Error);
+          if (!unavailable(error)) log.error('thread.writer_warm_failed', { error: (error as Error).message });
+        }
+      }),
+    );
+  }
+
   write(post: QueuedPost): Promise<WriteOutcome> {
     return new Promise((resolve, reject) => {
       this.queue.push({ post, key: `${post.caseId}:${post.clientId}`, skipped: 0, resolve, reject });
@@ -390,9 +413,18 @@ async function writeOnce(pool: pg.Pool, posts: QueuedPost[], mode: LockMode): Pr
 
 const writers = new Map<string, MessageWriter>();
 
+function writerFor(databaseUrl: string): MessageWriter {
+  let writer = writers.get(databaseUrl);
+  if (!writer) writers.set(databaseUrl, (writer = new MessageWriter(databaseUrl)));
+  return writer;
+}
+
 /** Stores one post (with whatever else is waiting); resolves once it is committed, or says why not. */
 export function writeMessage(post: QueuedPost): Promise<WriteOutcome> {
-  let writer = writers.get(post.databaseUrl);
-  if (!writer) writers.set(post.databaseUrl, (writer = new MessageWriter(post.databaseUrl)));
-  return writer.write(post);
+  return writerFor(post.databaseUrl).write(post);
+}
+
+/** Gets the writer for this database ready before the first post (connections open, statements planned). */
+export function warmMessageWriter(databaseUrl: string): Promise<void> {
+  return writerFor(databaseUrl).warm();
 }
