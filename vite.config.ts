@@ -11,8 +11,7 @@ export default defineConfig({
   root: 'client',
   plugins: [react(), tailwindcss()],
   resolve: { alias: { '@shared': shared } },
-  // The manifest tells the server which chunks a page needs, to name them in that page's HTML.
-  build: { outDir: '../dist/client', emptyOutDir: true, sourcemap: false, manifest: true },
+  build: { outDir: '../dist/client', emptyOutDir: true, sourcemap: false },
   server: {
     port: Number(process.env.VITE_PORT ?? 5173),
     host: '127.0.0.1',

@@ -6,7 +6,7 @@ import { fileURLToPath } from 'node:url';
 import compression from 'compression';
 import express, { type Express, type NextFunction, type Request, type RequestHandler, type Response } from 'express';
 import type { AppContext } from './context';
-import { builtFile, pageChunks, renderShell, type Manifest, type ShellData } from './lib/client-shell';
+import { renderShell, shellTemplate, type ShellData } from './lib/client-shell';
 import { errorHandler } from './lib/error-handler';
 import { AppError, notFound } from './lib/errors';
 import { crossSiteGuard, jsonOnly, securityHeaders } from './lib/security';
@@ -93,9 +93,7 @@ function absoluteSessionTimeout(hours: number) {
 }
 
 function serveClient(app: Express, session: RequestHandler[]): void {
-  const template = builtFile(path.join(CLIENT_DIST, 'index.html'), (text) => text);
-  // Written by the build (vite.config.ts `build.manifest`); dot-folders are never served.
-  const manifest = builtFile(path.join(CLIENT_DIST, '.vite/manifest.json'), (text) => JSON.parse(text) as Manifest);
+  const template = shellTemplate(path.join(CLIENT_DIST, 'index.html'));
   app.use(
     '/assets',
     express.static(path.join(CLIENT_DIST, 'assets'), { immutable: true, maxAge: '1y', index: false, fallthrough: true }),
@@ -111,7 +109,7 @@ function serveClient(app: Express, session: RequestHandler[]): void {
     }
     void readShellData(req, res, session).then((data) => {
       // The page names the person, so no cache may keep it (nor show it after a sign-out).
-      res.set('Cache-Control', 'no-store').type('html').send(renderShell(html, data, pageChunks(manifest(), req.path, data)));
+      res.set('Cache-Control', 'no-store').type('html').send(renderShell(html, data));
     });
   });
 }

@@ -28,7 +28,7 @@ function watch(page: Page): { api: string[]; errors: string[] } {
 }
 
 describe('the first page a browser opens', () => {
-  test('when a signed-in grower opens "Open a case" by its address, then it shows without asking who is signed in, its code named in the HTML', async () => {
+  test('when a signed-in grower opens "Open a case" by its address, then it shows without asking who is signed in', async () => {
     const context = await newContext(browser);
     const first = await context.newPage();
     await signIn(first, 'grower@example.test');
@@ -37,9 +37,8 @@ describe('the first page a browser opens', () => {
     const page = await context.newPage();
     const seen = watch(page);
     const response = await page.goto('/cases/new');
-    const html = (await response?.text()) ?? '';
+    // The page names the person: no cache may keep it.
     expect(response?.headers()['cache-control']).toBe('no-store');
-    expect(html).toMatch(/<link rel="modulepreload" crossorigin href="\/assets\/open-case-[\w-]+\.js" \/>/);
     await expect.poll(() => page.getByRole('heading', { level: 1, name: 'Open a case' }).isVisible(), SOON).toBe(true);
     await expect.poll(() => page.getByRole('banner').getByText('Rowan Tillsworth').filter({ visible: true }).count(), SOON).toBeGreaterThan(0);
     expect(seen.api).not.toContain('/api/auth/me');
@@ -59,11 +58,10 @@ describe('the first page a browser opens', () => {
     await context.close();
   });
 
-  test('when a visitor opens a signed-in page by its address, then they are sent to sign in and back', async () => {
+  test('when a visitor opens a signed-in page by its address, then they are sent to sign in', async () => {
     const context = await newContext(browser);
     const page = await context.newPage();
-    const response = await page.goto('/cases/new');
-    expect(await response?.text()).not.toContain('modulepreload" crossorigin href="/assets/open-case-');
+    await page.goto('/cases/new');
     await expect.poll(() => page.url(), SOON).toContain('/sign-in?next=%2Fcases%2Fnew');
     await context.close();
   });

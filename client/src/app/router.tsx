@@ -5,8 +5,7 @@ import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { AppLayout } from '../components/layouts/app-layout';
 import { RootErrorBoundary, RouteErrorBoundary } from '../components/errors/route-error-boundary';
 import { Spinner } from '../components/ui/spinner';
-import { PAGES, type Access } from '@shared/pages';
-import { loadUser, requireUser } from '../lib/auth';
+import { loadUser, requireUser, type Access } from '../lib/auth';
 import { seedFromPage } from './boot-data';
 
 /**
@@ -26,11 +25,8 @@ function AppLoading() {
   );
 }
 
-// Each page is its own chunk, fetched when its address is first opened (the server names the
-// chunk in the HTML of a deep link, so the browser fetches it alongside the app's).
-const pageModules = import.meta.glob<RouteModule>('./routes/**/*.tsx');
-
 export function createAppRouter(queryClient: QueryClient) {
+  // Access is declared here, beside the path, so every page's guard can be read in one place.
   const page = (load: () => Promise<RouteModule>, access: Access = 'anyone'): Pick<RouteObject, 'lazy' | 'ErrorBoundary'> => ({
     ErrorBoundary: RouteErrorBoundary,
     lazy: async () => {
@@ -58,12 +54,29 @@ export function createAppRouter(queryClient: QueryClient) {
         await loadUser(queryClient);
         return null;
       },
-      // Paths and who may open them are listed in server/shared/pages.ts, in one place.
-      children: PAGES.map(({ path, module, access }) => {
-        const load = pageModules[`./routes/${module}.tsx`];
-        if (!load) throw new Error(`No page file for ${module}.`);
-        return path === '' ? { index: true, ...page(load, access) } : { path, ...page(load, access) };
-      }),
+      children: [
+        { index: true, ...page(() => import('./routes/landing')) },
+        { path: 'sign-in', ...page(() => import('./routes/auth/sign-in')) },
+        { path: 'join', ...page(() => import('./routes/auth/join')) },
+        { path: 'forgot-password', ...page(() => import('./routes/auth/forgot-password')) },
+        { path: 'reset-password', ...page(() => import('./routes/auth/reset-password')) },
+        { path: 'verify-email', ...page(() => import('./routes/auth/verify-email')) },
+        { path: 'batches', ...page(() => import('./routes/batches/batch-shelf'), 'signed-in') },
+        { path: 'batches/new', ...page(() => import('./routes/batches/new-batch'), 'signed-in') },
+        { path: 'batches/:id', ...page(() => import('./routes/batches/batch-page'), 'signed-in') },
+        { path: 'batches/:id/edit', ...page(() => import('./routes/batches/edit-batch'), 'signed-in') },
+        { path: 'batches/:id/label', ...page(() => import('./routes/batches/batch-label'), 'signed-in') },
+        { path: 'cases/new', ...page(() => import('./routes/cases/open-case'), 'signed-in') },
+        { path: 'cases/:id', ...page(() => import('./routes/cases/case-page'), 'signed-in') },
+        { path: 'cases/:id/recovery-report', ...page(() => import('./routes/cases/recovery-report'), 'signed-in') },
+        { path: 'rounds', ...page(() => import('./routes/rounds/rounds'), ['mentor', 'steward']) },
+        { path: 'library', ...page(() => import('./routes/library/field-library')) },
+        { path: 'library/:slug', ...page(() => import('./routes/library/field-note')) },
+        { path: 'steward', ...page(() => import('./routes/steward/steward-desk'), ['steward']) },
+        { path: 'mentors/:id', ...page(() => import('./routes/mentors/mentor-profile'), 'signed-in') },
+        { path: 'apply-to-mentor', ...page(() => import('./routes/mentors/apply'), 'signed-in') },
+        { path: '*', ...page(() => import('./routes/not-found')) },
+      ],
     },
   ]);
 }

@@ -4,12 +4,18 @@ import type { QueryClient } from '@tanstack/react-query';
 import { data, redirect } from 'react-router';
 import type { PublicUser } from '@shared/auth-schemas';
 import type { Role } from '@shared/case-status';
-import { canAccess, type Access } from '@shared/pages';
 import { meQueryOptions } from '../features/auth/api/get-me';
 
-export { canAccess, type Access };
+/** Who may open a page: anyone (visitors too), any signed-in user, or only these roles. */
+export type Access = 'anyone' | 'signed-in' | readonly Role[];
 
 export const ROLE_LABELS: Record<Role, string> = { grower: 'Grower', mentor: 'Mentor', steward: 'Steward' };
+
+export function canAccess(user: PublicUser | null | undefined, access: Access): boolean {
+  if (access === 'anyone') return true;
+  if (!user) return false;
+  return access === 'signed-in' || access.includes(user.role);
+}
 
 /** What a 403 thrown by requireUser carries to the route's error boundary. */
 export interface RoleRefusal {
