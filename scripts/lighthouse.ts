@@ -64,15 +64,24 @@ async function main(): Promise<void> {
     for (const screen of screens.filter((s) => !only || only.includes(s.name.toLowerCase()))) {
       const runs: { scores: Record<keyof typeof BUDGET, number>; metrics: number[]; load: string }[] = [];
       for (let run = 1; run <= RUNS; run += 1) {
-        const load = loadAverage();
-        const result = await lighthouse(`${server.url}${screen.path}`, {
-          port: chrome.port,
-          output: 'json',
-          logLevel: 'error',
-          onlyCategories: ['performance', 'accessibility', 'best-practices'],
-          extraHeaders: screen.signedIn ? { Cookie: cookie } : undefined,
-          // Loopback has no real network: measure with Lighthouse's default simulated mobile throttling.
-        });
+        let load = loadAverage();
+        const measure = () =>
+          lighthouse(`${server.url}${screen.path}`, {
+            port: chrome.port,
+            output: 'json',
+            logLevel: 'error',
+            onlyCategories: ['performance', 'accessibility', 'best-practices'],
+            extraHeaders: screen.signedIn ? { Cookie: cookie } : undefined,
+            // Loopback has no real network: measure with Lighthouse's default simulated mobile throttling.
+          });
+        let result = await measure();
+        // A run Lighthouse could not record (NO_NAVSTART and the like, common on a busy machine)
+        // measured nothing and would count as 0: it is run again, at most twice.
+        for (let retry = 0; retry < 2 && result?.lhr.runtimeError; retry += 1) {
+          say(`${screen.name} run ${run}: ${result.lhr.runtimeError.code}, running it again`);
+          load = loadAverage();
+          result = await measure();
+        }
         if (!result) throw new Error(`Lighthouse returned nothing for ${screen.path}.`);
         const slug = screen.name.replace(/\W+/g, '-');
         fs.writeFileSync(path.join(REPORTS, `${slug}-${run}.json`), typeof result.report === 'string' ? result.report : result.report.join(''));
