@@ -5,7 +5,9 @@
 // it, gzipped) and shared by every request with the same filter (`listFilterOf`: who may see
 // what is part of the key, so a grower's page is theirs alone, and mentors and stewards, who see
 // different latest lines, do not share) for at most PAGE_TTL_MS, and only while nothing it
-// shows has changed since it was begun.
+// shows has changed since it was begun. The next page is begun a quarter of that before the
+// end, while the current one is still given out, so that when nothing changes nobody waits for
+// a build (a build cost the whole wave of waiting requests its time, once a second).
 //
 // Never older than the request: each request's session was read (session-reader.ts) after it
 // arrived, together with the database's change count, which every transaction that changes
@@ -25,6 +27,8 @@ import type { ChangeWatch } from '../../lib/session';
 import { casesService, listFilterOf, type CaseListFilter } from './cases.service';
 
 export const PAGE_TTL_MS = 1000;
+/** When the next page is begun while this one is still given out, so that nobody waits for it. */
+const REFRESH_AFTER_MS = 750;
 const MAX_PAGES = 200;
 /** Below this compression does not pay (the compression middleware's own threshold). */
 const GZIP_FROM_BYTES = 1024;
@@ -83,6 +87,8 @@ interface Entry {
   page: Promise<PreparedJson>;
   /** the page once built, so that a hit needs no promise */
   ready?: PreparedJson;
+  /** its successor, begun REFRESH_AFTER_MS after it while it is still given out */
+  next?: Entry;
 }
 
 export interface RoundsPages {
@@ -92,32 +98,53 @@ export interface RoundsPages {
 
 export function createRoundsPages(changes: ChangeWatch, build: (filter: CaseListFilter) => Promise<unknown> = (f) => casesService.listPage(f)): RoundsPages {
   const entries = new Map<string, Entry>();
-  const fresh = async (filter: CaseListFilter) => {
+
+  const begin = (key: string, filter: CaseListFilter, count: number, now: number): Entry => {
     roundsPageStats.built += 1;
-    return prepareJson(await build(filter));
+    const entry: Entry = { changes: count, startedAt: now, page: build(filter).then(prepareJson) };
+    entry.page.then(
+      (built) => {
+        entry.ready = built;
+        // A successor takes over once built; a newer page begun meanwhile stays.
+        const current = entries.get(key);
+        if (current && current !== entry && current.next === entry) entries.set(key, entry);
+      },
+      () => {
+        const current = entries.get(key);
+        if (current === entry) entries.delete(key);
+        else if (current?.next === entry) current.next = undefined;
+      },
+    );
+    return entry;
   };
+
   return {
     page(req, filter) {
       const seen = changes.seenBy(req);
-      if (seen === undefined) return fresh(filter);
+      if (seen === undefined) {
+        roundsPageStats.built += 1;
+        return build(filter).then(prepareJson);
+      }
       const key = JSON.stringify(filter);
       const now = Date.now();
       const found = entries.get(key);
-      if (found && seen <= found.changes && now - found.startedAt < PAGE_TTL_MS) {
-        roundsPageStats.shared += 1;
-        return found.ready ?? found.page;
+      if (found && seen <= found.changes) {
+        const age = now - found.startedAt;
+        if (age < PAGE_TTL_MS) {
+          // Begun after a read with this count, so the successor may carry it too.
+          if (age >= REFRESH_AFTER_MS && !found.next) found.next = begin(key, filter, found.changes, now);
+          roundsPageStats.shared += 1;
+          return found.ready ?? found.page;
+        }
+        if (found.next && now - found.next.startedAt < PAGE_TTL_MS) {
+          roundsPageStats.shared += 1;
+          return found.next.ready ?? found.next.page;
+        }
       }
-      const entry: Entry = { changes: seen, startedAt: now, page: fresh(filter) };
-      entry.page.then(
-        (built) => (entry.ready = built),
-        () => undefined,
-      );
+      const entry = begin(key, filter, seen, now);
       entries.delete(key);
       entries.set(key, entry);
       if (entries.size > MAX_PAGES) entries.delete(entries.keys().next().value!);
-      entry.page.catch(() => {
-        if (entries.get(key) === entry) entries.delete(key);
-      });
       return entry.page;
     },
   };
