@@ -1,3 +1,4 @@
+import { lazy, Suspense } from 'react';
 import type { QueryClient } from '@tanstack/react-query';
 import { useSuspenseQuery } from '@tanstack/react-query';
 import { useParams, type LoaderFunctionArgs } from 'react-router';
@@ -11,8 +12,7 @@ import { AddCasePhotos } from '../../../features/cases/components/add-case-photo
 import { CaseHeader } from '../../../features/cases/components/case-header';
 import { CasePhotos } from '../../../features/cases/components/case-photos';
 import { SimilarCasesList } from '../../../features/cases/components/similar-cases-list';
-import { CaseThread } from '../../../features/threads/components/case-thread';
-import { CloseCasePanel } from '../../../features/closing/components/close-case-panel';
+import { Spinner } from '../../../components/ui/spinner';
 import { RecoveryPrompt } from '../../../features/closing/components/recovery-prompt';
 
 export const clientLoader = (queryClient: QueryClient) => async ({ params }: LoaderFunctionArgs) => {
@@ -20,6 +20,12 @@ export const clientLoader = (queryClient: QueryClient) => async ({ params }: Loa
   await queryClient.ensureQueryData(caseQueryOptions(routeIdOf(params.id)));
   return null;
 };
+
+// Below the case itself, so fetched once the case is on screen rather than before it: the thread
+// (with its composer and the live connection's handling) and the closing panel (with its form
+// library). The page's largest text, the case, no longer waits for their code.
+const CloseCasePanel = lazy(() => import('../../../features/closing/components/close-case-panel').then((m) => ({ default: m.CloseCasePanel })));
+const CaseThread = lazy(() => import('../../../features/threads/components/case-thread').then((m) => ({ default: m.CaseThread })));
 
 export default function CasePageRoute() {
   const id = routeIdOf(useParams().id);
@@ -49,8 +55,10 @@ export default function CasePageRoute() {
         emptyText=""
       />
 
-      <CloseCasePanel caseId={id} />
-      <CaseThread caseId={id} />
+      <Suspense fallback={<Spinner label="Opening the thread…" />}>
+        <CloseCasePanel caseId={id} />
+        <CaseThread caseId={id} />
+      </Suspense>
     </div>
   );
 }
