@@ -7,14 +7,22 @@ import { RootErrorBoundary, RouteErrorBoundary } from '../components/errors/rout
 import { Spinner } from '../components/ui/spinner';
 import { loadUser, requireUser, type Access } from '../lib/auth';
 import { seedFromPage } from './boot-data';
+import { openCaseLoader } from './routes/cases/open-case.loader';
+import { caseLoader } from './routes/cases/case-page.loader';
+import { fieldLibraryLoader } from './routes/library/field-library.loader';
+
+/** Receives the query client and returns a route's loader (to warm the cache). */
+export type ClientLoader = (queryClient: QueryClient) => LoaderFunction;
 
 /**
- * What a file under app/routes/ exports: the page as default, and optionally `clientLoader`,
- * which receives the query client and returns the route's loader (to warm the cache).
+ * What a file under app/routes/ exports: the page as default, and optionally `clientLoader`.
+ * A page whose data should be asked for while its code is still on the way keeps its loader in a
+ * `<page>.loader.ts` beside it instead, passed to `page()` here: that file is small and part of
+ * the app's entry, so the loader starts at once and runs alongside the page's chunk.
  */
 export interface RouteModule {
   default: ComponentType;
-  clientLoader?: (queryClient: QueryClient) => LoaderFunction;
+  clientLoader?: ClientLoader;
 }
 
 function AppLoading() {
@@ -27,21 +35,23 @@ function AppLoading() {
 
 export function createAppRouter(queryClient: QueryClient) {
   // Access is declared here, beside the path, so every page's guard can be read in one place.
-  const page = (load: () => Promise<RouteModule>, access: Access = 'anyone'): Pick<RouteObject, 'lazy' | 'ErrorBoundary'> => ({
-    ErrorBoundary: RouteErrorBoundary,
-    lazy: async () => {
-      const module = await load();
-      const pageLoader = module.clientLoader?.(queryClient);
-      if (access === 'anyone' && !pageLoader) return { Component: module.default };
-      return {
-        Component: module.default,
-        loader: async (args: LoaderFunctionArgs) => {
-          if (access !== 'anyone') await requireUser(queryClient, args.request, access === 'signed-in' ? undefined : access);
-          return pageLoader ? pageLoader(args) : null;
-        },
-      };
-    },
-  });
+  const page = (load: () => Promise<RouteModule>, access: Access = 'anyone', early?: ClientLoader): Pick<RouteObject, 'lazy' | 'ErrorBoundary' | 'loader'> => {
+    const guarded = (pageLoader: LoaderFunction | undefined) => async (args: LoaderFunctionArgs) => {
+      if (access !== 'anyone') await requireUser(queryClient, args.request, access === 'signed-in' ? undefined : access);
+      return pageLoader ? pageLoader(args) : null;
+    };
+    // Defined on the route itself, React Router runs the loader while `lazy` fetches the chunk.
+    if (early) return { ErrorBoundary: RouteErrorBoundary, loader: guarded(early(queryClient)), lazy: async () => ({ Component: (await load()).default }) };
+    return {
+      ErrorBoundary: RouteErrorBoundary,
+      lazy: async () => {
+        const module = await load();
+        const pageLoader = module.clientLoader?.(queryClient);
+        if (access === 'anyone' && !pageLoader) return { Component: module.default };
+        return { Component: module.default, loader: guarded(pageLoader) };
+      },
+    };
+  };
 
   return createBrowserRouter([
     {
@@ -66,11 +76,11 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: 'batches/:id', ...page(() => import('./routes/batches/batch-page'), 'signed-in') },
         { path: 'batches/:id/edit', ...page(() => import('./routes/batches/edit-batch'), 'signed-in') },
         { path: 'batches/:id/label', ...page(() => import('./routes/batches/batch-label'), 'signed-in') },
-        { path: 'cases/new', ...page(() => import('./routes/cases/open-case'), 'signed-in') },
-        { path: 'cases/:id', ...page(() => import('./routes/cases/case-page'), 'signed-in') },
+        { path: 'cases/new', ...page(() => import('./routes/cases/open-case'), 'signed-in', openCaseLoader) },
+        { path: 'cases/:id', ...page(() => import('./routes/cases/case-page'), 'signed-in', caseLoader) },
         { path: 'cases/:id/recovery-report', ...page(() => import('./routes/cases/recovery-report'), 'signed-in') },
         { path: 'rounds', ...page(() => import('./routes/rounds/rounds'), ['mentor', 'steward']) },
-        { path: 'library', ...page(() => import('./routes/library/field-library')) },
+        { path: 'library', ...page(() => import('./routes/library/field-library'), 'anyone', fieldLibraryLoader) },
         { path: 'library/:slug', ...page(() => import('./routes/library/field-note')) },
         { path: 'steward', ...page(() => import('./routes/steward/steward-desk'), ['steward']) },
         { path: 'mentors/:id', ...page(() => import('./routes/mentors/mentor-profile'), 'signed-in') },

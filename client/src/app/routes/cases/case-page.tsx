@@ -1,7 +1,6 @@
 import { lazy, Suspense } from 'react';
-import type { QueryClient } from '@tanstack/react-query';
 import { useSuspenseQuery } from '@tanstack/react-query';
-import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { useParams } from 'react-router';
 import { PAGE_WIDTH } from '../../../components/layouts/content-layout';
 import { cx } from '../../../components/ui/cx';
 import { useUser } from '../../../features/auth/api/get-me';
@@ -14,12 +13,6 @@ import { CasePhotos } from '../../../features/cases/components/case-photos';
 import { SimilarCasesList } from '../../../features/cases/components/similar-cases-list';
 import { Spinner } from '../../../components/ui/spinner';
 import { RecoveryPrompt } from '../../../features/closing/components/recovery-prompt';
-
-export const clientLoader = (queryClient: QueryClient) => async ({ params }: LoaderFunctionArgs) => {
-  // Someone who may not read the case gets a 404 from the server, and the page says so.
-  await queryClient.ensureQueryData(caseQueryOptions(routeIdOf(params.id)));
-  return null;
-};
 
 // Below the case itself, so fetched once the case is on screen rather than before it: the thread
 // (with its composer and the live connection's handling) and the closing panel (with its form

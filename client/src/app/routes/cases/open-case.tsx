@@ -1,26 +1,12 @@
-import type { QueryClient } from '@tanstack/react-query';
 import { useQuery } from '@tanstack/react-query';
-import { Link, useNavigate, useSearchParams, type LoaderFunctionArgs } from 'react-router';
+import { Link, useNavigate, useSearchParams } from 'react-router';
 import { ContentLayout } from '../../../components/layouts/content-layout';
 import { Spinner } from '../../../components/ui/spinner';
 import { batchQueryOptions } from '../../../features/batches/api/get-batch';
-import { batchesQueryOptions, useBatches } from '../../../features/batches/api/get-batches';
+import { useBatches } from '../../../features/batches/api/get-batches';
 import { formatMadeOn } from '../../../features/batches/lib/batch-format';
-import { routeIdOf } from '../../../features/batches/lib/route-id';
 import { OpenCaseForm } from '../../../features/cases/components/open-case-form';
-
-function batchParamOf(params: URLSearchParams): number | null {
-  const raw = params.get('batch');
-  return raw === null || raw === '' ? null : routeIdOf(raw);
-}
-
-export const clientLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
-  const batchId = batchParamOf(new URL(request.url).searchParams);
-  // A batch that is not the grower's answers 404, and the page says it could not be found.
-  if (batchId !== null) await queryClient.ensureQueryData(batchQueryOptions(batchId));
-  else await queryClient.prefetchQuery(batchesQueryOptions());
-  return null;
-};
+import { batchParamOf } from './open-case.loader';
 
 export default function OpenCaseRoute() {
   const [params, setParams] = useSearchParams();

@@ -1,22 +1,15 @@
 // The Field Library (PRODUCT.md screen 8): search with filters kept in the address, so a search
 // can be shared or bookmarked; results best first; how each remedy holds up.
-import type { QueryClient } from '@tanstack/react-query';
-import { Link, useSearchParams, type LoaderFunctionArgs } from 'react-router';
+import { Link, useSearchParams } from 'react-router';
 import { ContentLayout } from '../../../components/layouts/content-layout';
 import { Alert } from '../../../components/ui/alert';
 import { buttonClasses } from '../../../components/ui/button';
 import { Spinner } from '../../../components/ui/spinner';
-import { libraryListQueryOptions, useLibrarySearch, type LibrarySearch } from '../../../features/library/api/search-library';
+import { useLibrarySearch, type LibrarySearch } from '../../../features/library/api/search-library';
 import { LibraryResultCard } from '../../../features/library/components/library-result-card';
 import { LibrarySearchForm } from '../../../features/library/components/library-search-form';
 import { RemedyRecordsPanel } from '../../../features/library/components/remedy-records-panel';
 import { paramsFromSearch, searchFromParams } from '../../../features/library/lib/library-params';
-
-export const clientLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
-  // Warm, not wait: a slow answer shows the page with its spinner rather than holding it back.
-  void queryClient.prefetchQuery(libraryListQueryOptions(searchFromParams(new URL(request.url).searchParams)));
-  return null;
-};
 
 // Thousands grouped by hand: a page's first Intl.NumberFormat makes the browser load its number
 // data (16–35 ms in Chromium on this project's 2-core machine, more on a slow phone), all on the
