@@ -89,7 +89,8 @@ export function registerThreadHandlers(io: ThreadServer, socket: ThreadSocket, c
   const onAck = <S extends z.ZodType>(
     event: keyof ClientToServerEvents,
     schema: S,
-    handle: (user: Express.User, payload: z.infer<S>) => Promise<AckBody>,
+    /** `afterAck`: work to run as soon as the ack is sent (in the same turn, not a later one) */
+    handle: (user: Express.User, payload: z.infer<S>, afterAck: (work: () => void) => void) => Promise<AckBody>,
     /** the statement storing this payload re-checks the session and account itself */
     checkedInStatement: (payload: z.infer<S>) => boolean = () => false,
   ) => {
@@ -103,7 +104,10 @@ export function registerThreadHandlers(io: ThreadServer, socket: ThreadSocket, c
         // A post checks the session and account in the statement that stores it (message-writer.ts).
         const user = known && checkedInStatement(parsed.data) ? known : await freshUser();
         if (!user) return refuse(ack);
-        ack(await handle(user, parsed.data));
+        const afterAck: (() => void)[] = [];
+        const body = await handle(user, parsed.data, (work) => afterAck.push(work));
+        ack(body);
+        for (const work of afterAck) work();
       } catch (error) {
         if (error instanceof AppError && error.code === 'unauthorized') return refuse(ack);
         ack(errorAck(error));
@@ -134,13 +138,15 @@ export function registerThreadHandlers(io: ThreadServer, socket: ThreadSocket, c
   onAck(
     'message:send',
     sendMessageSchema,
-    async (user, input) => {
+    async (user, input, afterAck) => {
       const result = await postMessage(ctx, user, input.caseId, input, withoutPhotos(input) ? { sid: socket.data.sid } : {});
       if (result.message.author?.id === user.id) socket.data.displayName = user.displayName = result.message.author.displayName;
-      // Acknowledge first (the message is stored), then fan out to everyone but this socket.
-      setImmediate(() => {
-        if (result.change) void publishChange(result.change, { skip: { socketId: socket.id, messageId: result.message.id } });
-      });
+      // Acknowledge first (the message is stored), then at once fan out to everyone but this
+      // socket. Not on a later turn of the event loop: that turn comes only after every other
+      // event ready meanwhile (a whole batch of acks, the posts arriving), which under load was
+      // most of the time from ack to receipt.
+      const change = result.change;
+      if (change) afterAck(() => void publishChange(change, { skip: { socketId: socket.id, messageId: result.message.id } }));
       return { ok: true, message: result.message, duplicate: result.duplicate };
     },
     withoutPhotos,
