@@ -6,6 +6,7 @@ import { execFileSync, spawnSync } from 'node:child_process';
 import crypto from 'node:crypto';
 import fs from 'node:fs';
 import net from 'node:net';
+import os from 'node:os';
 import path from 'node:path';
 import pg from 'pg';
 
@@ -112,6 +113,20 @@ export function resolveDataDir(preferred: string): string {
  * Initialises (once) and starts (unless already running) a cluster in `dataDir`.
  * `metaFile` keeps the port and password so later starts reuse them.
  */
+/**
+ * PostgreSQL's default shared_buffers (128 MB) is sized to start on small machines; its manual
+ * ("Resource Consumption") suggests 25 % of memory for a dedicated server. The embedded cluster
+ * shares the machine with the app, so it takes an eighth of memory, between 128 MB and 1 GB:
+ * enough to keep a large library's search structures (postings, head index, the rows they
+ * lead to) in PostgreSQL's own cache rather than re-reading them from the system's.
+ * SPOREWELL_PG_SHARED_BUFFERS_MB sets it (in MB, at least 16).
+ */
+export function sharedBuffersMb(totalBytes = os.totalmem()): number {
+  const chosen = Number(process.env.SPOREWELL_PG_SHARED_BUFFERS_MB);
+  if (Number.isInteger(chosen) && chosen >= 16) return chosen;
+  return Math.max(128, Math.min(1024, Math.floor(totalBytes / 8 / 2 ** 20)));
+}
+
 export async function startCluster(options: {
   dataDir: string;
   metaFile: string;
@@ -153,7 +168,7 @@ export async function startCluster(options: {
   if (!port || !(await isPortFree(port))) port = options.preferredPort && (await isPortFree(options.preferredPort)) ? options.preferredPort : await freePort();
   meta.port = port;
   writeMeta(options.metaFile, meta);
-  const serverOptions = `-c listen_addresses=127.0.0.1 -p ${port} -c unix_socket_directories=${dataDir} -c max_connections=200 -c fsync=on`;
+  const serverOptions = `-c listen_addresses=127.0.0.1 -p ${port} -c unix_socket_directories=${dataDir} -c max_connections=200 -c fsync=on -c shared_buffers=${sharedBuffersMb()}MB`;
   try {
     asServerUser(path.join(bin, 'pg_ctl'), ['-D', dataDir, '-l', path.join(dataDir, 'server.log'), '-w', '-t', '60', '-o', serverOptions, 'start']);
   } catch (error) {

@@ -81,8 +81,9 @@ function rankSql(words: readonly RankWord[], bind: unknown[]): { from: string; e
   }
   const gains = words.map((word) => {
     const exponent = RANKED_FIELDS.map(({ field, weight }) => {
-      const found = word.readings.map((r) => `WHEN e.${field}_tsv @@ rq.${aliases.get(r.term)} THEN ${literal(r.lnScore)}`).join(' ');
-      return `${literal(weight)} * e.${field}_norm * (CASE ${found} ELSE 0 END)`;
+      // float8 throughout: a numeric CASE would be converted to float8 on every row (through text).
+      const found = word.readings.map((r) => `WHEN e.${field}_tsv @@ rq.${aliases.get(r.term)} THEN ${literal(r.lnScore)}::float8`).join(' ');
+      return `${literal(weight)}::float8 * e.${field}_norm * (CASE ${found} ELSE 0::float8 END)`;
     }).join(' + ');
     return `${literal(word.idf)} * (1 - exp(${exponent}))`;
   });
@@ -121,8 +122,8 @@ export const libraryRepository = {
   },
 
   /** PostgreSQL narrows: entries whose title, summary or labels contain any of `narrowing`, or
-   * a word of every one of its `all` groups (GIN on search_head), ranked the way fuse.js will
-   * score them (rankSql), best first. */
+   * a word of every one of its `all` groups (as written: GIN of migration 0305), ranked the way
+   * fuse.js will score them (rankSql), best first. */
   async matchHead(
     words: readonly RankWord[],
     narrowing: readonly string[] | { all: ReadonlyArray<readonly string[]> },
@@ -133,7 +134,7 @@ export const libraryRepository = {
     const groups = Array.isArray(narrowing) ? [narrowing as readonly string[]] : (narrowing as { all: ReadonlyArray<readonly string[]> }).all;
     if (!groups.length || groups.some((g) => !g.length) || !words.length || cap <= 0) return [];
     // Any word of a group, every group: (a or b) and (c or d). The words are a–z only, so
-    // spelling the query out for to_tsquery is safe; a stop word drops out of it.
+    // spelling the query out for to_tsquery is safe.
     const match = groups.map((g) => `(${g.join(' | ')})`).join(' & ');
     if (/[^a-z()|& ]/.test(match)) throw new RangeError('search words must be a-z');
     const bind: unknown[] = [match, cap, [...exclude]];
@@ -141,8 +142,8 @@ export const libraryRepository = {
     const where = filterSql(filters, bind);
     return getSequelize().query<RankedEntryRow>(
       `SELECT ${LIST_COLUMNS}, (${rank.expression})::float8 AS rank
-         FROM library_entries e, to_tsquery('english', $1) AS q(query), ${rank.from}
-        WHERE e.search_head @@ q.query AND e.id <> ALL($3::int[]) ${where}
+         FROM library_entries e, to_tsquery('simple', $1) AS q(query), ${rank.from}
+        WHERE (e.title_tsv || e.summary_tsv || e.labels_tsv) @@ q.query AND e.id <> ALL($3::int[]) ${where}
         ORDER BY rank DESC, e.id DESC
         LIMIT $2`,
       { bind, type: QueryTypes.SELECT },
