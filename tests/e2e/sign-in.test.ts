@@ -2,6 +2,9 @@ import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import type { Browser } from 'playwright-core';
 import { DESKTOP, launch, newContext, PHONE, shot, signIn } from './browser';
 
+/** Signing in hashes a password (argon2id), which takes seconds on a busy machine: wait that long. */
+const SIGNED_IN_WAIT = { timeout: 15_000 };
+
 let browser: Browser;
 beforeAll(async () => {
   browser = await launch();
@@ -17,15 +20,15 @@ describe('signing in as the demo grower', () => {
       const page = await context.newPage();
       await page.goto('/batches');
       // Signed out, the batch shelf sends the visitor to sign in and back.
-      await expect.poll(() => new URL(page.url()).pathname).toBe('/sign-in');
+      await expect.poll(() => new URL(page.url()).pathname, SIGNED_IN_WAIT).toBe('/sign-in');
       await shot(page, `sign-in-${name}`);
       await page.getByLabel('E-mail').fill('grower@example.test');
       await page.getByLabel('Password').fill('sporewell-demo');
       await page.getByRole('button', { name: /sign in/i }).click();
-      await expect.poll(() => new URL(page.url()).pathname).toBe('/batches');
+      await expect.poll(() => new URL(page.url()).pathname, SIGNED_IN_WAIT).toBe('/batches');
       const banner = page.getByRole('banner');
       if (name === 'phone') await banner.getByRole('button', { name: /menu/i }).click();
-      await expect.poll(() => banner.getByText('Rowan Tillsworth').filter({ visible: true }).count()).toBeGreaterThan(0);
+      await expect.poll(() => banner.getByText('Rowan Tillsworth').filter({ visible: true }).count(), SIGNED_IN_WAIT).toBeGreaterThan(0);
       await shot(page, `signed-in-${name}`);
       await context.close();
     });
@@ -35,7 +38,7 @@ describe('signing in as the demo grower', () => {
     const context = await newContext(browser);
     const page = await context.newPage();
     await signIn(page, 'grower@example.test', 'not-the-demo-password');
-    await expect.poll(() => page.getByText('That e-mail and password do not match.').isVisible()).toBe(true);
+    await expect.poll(() => page.getByText('That e-mail and password do not match.').isVisible(), SIGNED_IN_WAIT).toBe(true);
     expect(new URL(page.url()).pathname).toBe('/sign-in');
     await context.close();
   });

@@ -3,6 +3,9 @@ import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { DESKTOP, launch, newContext, PHONE, shot, signIn } from './browser';
 
+/** Signing in hashes a password (argon2id), which takes seconds on a busy machine: wait that long. */
+const SIGNED_IN_WAIT = { timeout: 15_000 };
+
 const axeSource: string = createRequire(import.meta.url)('axe-core').source;
 
 let browser: Browser;
@@ -43,11 +46,11 @@ describe('a grower becomes a mentor through the steward desk', () => {
     const growerPage = await growerContext.newPage();
     await growerPage.goto('/');
     await growerPage.getByRole('link', { name: 'Apply to mentor' }).click();
-    await expect.poll(() => new URL(growerPage.url()).pathname).toBe('/apply-to-mentor');
+    await expect.poll(() => new URL(growerPage.url()).pathname, SIGNED_IN_WAIT).toBe('/apply-to-mentor');
     await growerPage.getByRole('heading', { level: 1, name: 'Apply to mentor' }).waitFor();
     // An empty form is refused in the browser, saying what is missing.
     await growerPage.getByRole('button', { name: 'Send my application' }).click();
-    await expect.poll(() => growerPage.getByText('Choose at least one stage you know well.').isVisible()).toBe(true);
+    await expect.poll(() => growerPage.getByText('Choose at least one stage you know well.').isVisible(), SIGNED_IN_WAIT).toBe(true);
     await growerPage.getByLabel(/^IMO1/).check();
     await growerPage.getByLabel(/^LAB/).check();
     await growerPage.getByLabel('Your experience').fill('Four springs of IMO1 from the beech hanger, and LAB from rice wash every month for the polytunnel beds.');
@@ -65,7 +68,7 @@ describe('a grower becomes a mentor through the steward desk', () => {
     const stewardContext = await newContext(browser, DESKTOP);
     const stewardPage = await stewardContext.newPage();
     await signIn(stewardPage, 'steward@example.test');
-    await expect.poll(() => new URL(stewardPage.url()).pathname).not.toBe('/sign-in');
+    await expect.poll(() => new URL(stewardPage.url()).pathname, SIGNED_IN_WAIT).not.toBe('/sign-in');
     await stewardPage.goto('/steward');
     await stewardPage.getByRole('heading', { level: 3, name: 'Open cases right now, by urgency' }).waitFor();
     await shot(stewardPage, 'steward-desk-health-desktop');
@@ -116,7 +119,7 @@ describe('a grower becomes a mentor through the steward desk', () => {
     const context = await newContext(browser, PHONE);
     const page = await context.newPage();
     await signIn(page, 'steward@example.test');
-    await expect.poll(() => new URL(page.url()).pathname).not.toBe('/sign-in');
+    await expect.poll(() => new URL(page.url()).pathname, SIGNED_IN_WAIT).not.toBe('/sign-in');
     await page.goto('/steward');
     await page.getByRole('heading', { level: 3, name: 'Cases opened per week, by stage' }).waitFor();
     expect(await page.getByText('The numbers as a table').count()).toBeGreaterThanOrEqual(5);
@@ -124,7 +127,7 @@ describe('a grower becomes a mentor through the steward desk', () => {
     expect(await axeProblems(page)).toEqual([]);
     for (const tab of ['People', 'Reports', 'Audit log']) {
       await page.getByRole('tab', { name: new RegExp(`^${tab}`) }).click();
-      await expect.poll(() => page.getByRole('tab', { name: new RegExp(`^${tab}`) }).getAttribute('aria-selected')).toBe('true');
+      await expect.poll(() => page.getByRole('tab', { name: new RegExp(`^${tab}`) }).getAttribute('aria-selected'), SIGNED_IN_WAIT).toBe('true');
     }
     await page.getByRole('tab', { name: /^People/ }).click();
     await page.getByLabel('Search by name or e-mail').fill('Marta');
