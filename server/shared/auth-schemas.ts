@@ -1,6 +1,6 @@
 // Sign-in and join: the same schemas validate the client's forms and the server's bodies.
 import { z } from 'zod';
-import { roleSchema } from './case-status';
+import { roleSchema } from './case-status-schemas';
 
 // OWASP ASVS 6.2.1 / 6.2.9: at least 8 characters, at least 64 allowed. We allow up to 128.
 export const PASSWORD_MIN = 8;

@@ -5,7 +5,8 @@ import { z } from 'zod';
 import { MAX_BATCH_GRAMS, SUGAR_TYPE_IDS, type BatchCheckResult, type BatchRisk, type SugarTypeId } from './batch-check';
 import { CASE_STATUSES, type CaseStatus } from './case-status';
 import { CAUSE_IDS, REMEDY_IDS, STAGE_IDS, SYMPTOM_IDS, type CauseId, type RemedyId, type StageId, type SymptomId } from './vocabulary';
-import { massUnitSchema, toGrams, type MassUnit } from './units';
+import { toGrams, type MassUnit } from './units';
+import { massUnitSchema } from './units-schemas';
 import type { UrgencyLevel } from './urgency';
 
 // ---------------------------------------------------------------------------------------------
@@ -179,14 +180,7 @@ export type OpenCase = z.output<typeof openCaseSchema>;
 // ---------------------------------------------------------------------------------------------
 // Photos
 
-export const PHOTO_LIMITS = {
-  maxFiles: 6,
-  maxFileBytes: 10 * 1024 * 1024,
-  maxPixels: 40_000_000,
-  longSide: 2048,
-  thumbLongSide: 400,
-  acceptedTypes: ['image/jpeg', 'image/png', 'image/webp'] as const,
-} as const;
+export { PHOTO_LIMITS } from './photo-limits';
 
 export const PHOTO_PURPOSES = ['case', 'thread', 'recovery'] as const;
 export type PhotoPurpose = (typeof PHOTO_PURPOSES)[number];

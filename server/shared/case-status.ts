@@ -1,5 +1,6 @@
-// Case states and who may move a case between them (PRODUCT.md, "Case status").
-import { z } from 'zod';
+// Case states and who may move a case between them (PRODUCT.md, "Case status"). No zod here, so
+// pages that only show a status do not load the schema library: the schemas are in
+// case-status-schemas.ts.
 
 export const CASE_STATUSES = [
   'awaiting_mentor',
@@ -11,7 +12,6 @@ export const CASE_STATUSES = [
   'withdrawn',
 ] as const;
 export type CaseStatus = (typeof CASE_STATUSES)[number];
-export const caseStatusSchema = z.enum(CASE_STATUSES);
 
 export const STATUS_LABELS: Record<CaseStatus, string> = {
   awaiting_mentor: 'Awaiting a mentor',
@@ -28,7 +28,6 @@ export const RESOLVED_STATUSES: readonly CaseStatus[] = ['recovered', 'lost'];
 
 export type Role = 'grower' | 'mentor' | 'steward';
 export const ROLES = ['grower', 'mentor', 'steward'] as const;
-export const roleSchema = z.enum(ROLES);
 
 /** Who may make each move by hand with POST /status. `watching` comes from closing, and
  * `recovered`/`lost` from the recovery report; those have routes of their own. */

@@ -1,7 +1,8 @@
 // The steward desk's contract: request bodies (validated on both sides) and the answers the
 // client reads. Imports nothing but zod and this folder.
 import { z } from 'zod';
-import { roleSchema, type Role } from './case-status';
+import type { Role } from './case-status';
+import { roleSchema } from './case-status-schemas';
 import type { StageId } from './vocabulary';
 import { stageSchema } from './vocabulary-schemas';
 import type { MentorLoad, OpenByUrgency, RecoveryRate, WeekReplyTimes, WeekStageCounts } from './metrics';

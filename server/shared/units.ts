@@ -1,5 +1,6 @@
-// Mass units a grower weighs with, and the exact factors between them.
-import { z } from 'zod';
+// Mass units a grower weighs with, and the exact factors between them. Plain data and
+// functions, no zod: the case page shows weights without loading the schema library (the
+// schemas are in units-schemas.ts).
 
 export const MASS_UNITS = ['g', 'kg', 'oz', 'lb'] as const;
 export type MassUnit = (typeof MASS_UNITS)[number];
@@ -20,25 +21,11 @@ export const GRAMS_PER_UNIT: Readonly<Record<MassUnit, number>> = {
   oz: 28.349523125,
 };
 
-export const massUnitSchema = z.enum(MASS_UNITS, {
-  error: 'Choose a unit: g, kg, oz or lb.',
-});
-
-const massValueSchema = z.number({ error: 'Enter a weight as a number.' });
-
-/** A weight that must be more than nothing (a culture, a sugar you are about to add). */
-export const massSchema = z.object({
-  value: massValueSchema.gt(0, { error: 'Enter a weight above zero.' }),
-  unit: massUnitSchema,
-});
-
-/** A weight that may be zero (sugar not added yet, an empty container). */
-export const nonNegativeMassSchema = z.object({
-  value: massValueSchema.gte(0, { error: 'A weight cannot be below zero.' }),
-  unit: massUnitSchema,
-});
-
-export type Mass = z.infer<typeof massSchema>;
+/** A weight as a grower types it (validated by `massSchema` in units-schemas.ts). */
+export interface Mass {
+  value: number;
+  unit: MassUnit;
+}
 
 export function toGrams(value: number, unit: MassUnit): number {
   return value * GRAMS_PER_UNIT[unit];

@@ -5,11 +5,10 @@ import {
   MASS_UNITS,
   formatMass,
   fromGrams,
-  massSchema,
-  nonNegativeMassSchema,
   toGrams,
   type MassUnit,
 } from '@shared/units';
+import { massSchema, nonNegativeMassSchema } from '@shared/units-schemas';
 
 const relative = (actual: number, expected: number) => Math.abs(actual - expected) / Math.abs(expected);
 

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { roleSchema } from '../../../shared/case-status';
+import { roleSchema } from '../../../shared/case-status-schemas';
 import { metricsQuerySchema, userChangeSchema } from '../../../shared/steward-schemas';
 import type { AppContext } from '../../context';
 import { pageQuery, parseId, parseOr400, requireRole, requireUser } from '../../lib/http';

@@ -3,7 +3,7 @@
 // here carries its own guard, so requests meant for the cases router pass through untouched.
 import { Router, type Response } from 'express';
 import { z } from 'zod';
-import { caseStatusSchema } from '../../../shared/case-status';
+import { caseStatusSchema } from '../../../shared/case-status-schemas';
 import { sendMessageSchema } from '../../../shared/socket-events';
 import type { AppContext } from '../../context';
 import { parseId, parseOr400, requireRole, requireSignedIn, requireUser } from '../../lib/http';

@@ -1,5 +1,5 @@
 import { Link } from 'react-router';
-import { SUGAR_TYPES } from '@shared/batch-check';
+import { SUGAR_TYPES } from '@shared/batch-check-model';
 import { STATUS_LABELS } from '@shared/case-status';
 import { ContentLayout } from '../../../components/layouts/content-layout';
 import { buttonClasses } from '../../../components/ui/button';

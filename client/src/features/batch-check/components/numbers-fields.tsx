@@ -1,6 +1,6 @@
 import { useId } from 'react';
 import type { UseFormRegisterReturn } from 'react-hook-form';
-import { STAGE_SUGAR_RULES, SUGAR_TYPES, SUGAR_TYPE_IDS } from '@shared/batch-check';
+import { STAGE_SUGAR_RULES, SUGAR_TYPES, SUGAR_TYPE_IDS } from '@shared/batch-check-model';
 import { MASS_UNITS } from '@shared/units';
 import { STAGE_IDS, type StageId } from '@shared/vocabulary';
 import { cx } from '../../../components/ui/cx';

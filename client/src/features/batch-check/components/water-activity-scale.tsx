@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import { GROWTH_LIMITS, WATER_ACTIVITY_SCALE, canGrowAt, type GrowthGroupId } from '@shared/batch-check';
+import { GROWTH_LIMITS, WATER_ACTIVITY_SCALE, canGrowAt, type GrowthGroupId } from '@shared/batch-check-model';
 import { cx } from '../../../components/ui/cx';
 
 /** The lines a grower needs on the picture. Gram-positive bacteria (0.90) sit a hair under

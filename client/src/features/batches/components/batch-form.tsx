@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { get, useForm, useWatch, type Path } from 'react-hook-form';
-import { SUGAR_TYPE_IDS, type SugarTypeId } from '@shared/batch-check';
+import { SUGAR_TYPE_IDS, type SugarTypeId } from '@shared/batch-check-model';
 import { batchCreateSchema, type BatchCreate, type BatchCreateInput, type BatchView } from '@shared/case-schemas';
 import type { MassUnit } from '@shared/units';
 import { STAGES } from '@shared/vocabulary';

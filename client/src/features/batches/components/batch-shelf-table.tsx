@@ -8,7 +8,7 @@ import {
   useReactTable,
   type SortingState,
 } from '@tanstack/react-table';
-import { STAGE_SUGAR_RULES } from '@shared/batch-check';
+import { STAGE_SUGAR_RULES } from '@shared/batch-check-model';
 import type { BatchCheckSummary, BatchView } from '@shared/case-schemas';
 import { cx } from '../../../components/ui/cx';
 import { RiskBadge } from '../../batch-check/components/risk-badge';

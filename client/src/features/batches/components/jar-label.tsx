@@ -1,5 +1,5 @@
 import { createPortal } from 'react-dom';
-import { SUGAR_TYPES } from '@shared/batch-check';
+import { SUGAR_TYPES } from '@shared/batch-check-model';
 import { massToGrams } from '@shared/units';
 import { SporewellMark } from '../../../components/layouts/sporewell-mark';
 import { cx } from '../../../components/ui/cx';

@@ -1,7 +1,8 @@
 // Photos go up as multipart through XMLHttpRequest rather than the JSON api client: fetch gives
 // no upload progress, and a grower on a weak rural connection needs to see that it is moving.
 import { ApiError, UNREACHABLE_MESSAGE } from '../../../lib/api-client';
-import { PHOTO_LIMITS, type PhotoView } from '@shared/case-schemas';
+import type { PhotoView } from '@shared/case-schemas';
+import { PHOTO_LIMITS } from '@shared/photo-limits';
 
 /** What the server takes in one request (POST /api/cases/:id/photos). */
 export const MAX_PHOTOS_PER_UPLOAD = PHOTO_LIMITS.maxFiles;

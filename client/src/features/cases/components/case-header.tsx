@@ -1,7 +1,7 @@
 import { Link } from 'react-router';
 import type { CaseDetail } from '@shared/case-schemas';
 import { STATUS_LABELS, type CaseStatus } from '@shared/case-status';
-import { SUGAR_TYPES } from '@shared/batch-check';
+import { SUGAR_TYPES } from '@shared/batch-check-model';
 import { formatMass } from '@shared/units';
 import type { UrgencyLevel } from '@shared/urgency';
 import { STAGES, SYMPTOMS, labelOf } from '@shared/vocabulary';

@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
 import { get, useForm, useWatch, type Path } from 'react-hook-form';
-import { SUGAR_TYPE_IDS, type SugarTypeId } from '@shared/batch-check';
+import { SUGAR_TYPE_IDS, type SugarTypeId } from '@shared/batch-check-model';
 import { discardNote } from '@shared/cautions';
 import {
   caseNumbersSchema,
