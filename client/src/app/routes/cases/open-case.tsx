@@ -1,3 +1,4 @@
+import { lazy, Suspense } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { Link, useNavigate, useSearchParams } from 'react-router';
 import { ContentLayout } from '../../../components/layouts/content-layout';
@@ -5,8 +6,12 @@ import { Spinner } from '../../../components/ui/spinner';
 import { batchQueryOptions } from '../../../features/batches/api/get-batch';
 import { useBatches } from '../../../features/batches/api/get-batches';
 import { formatMadeOn } from '../../../features/batches/lib/batch-format';
-import { OpenCaseForm } from '../../../features/cases/components/open-case-form';
 import { batchParamOf } from './open-case.loader';
+
+// The form is a chunk of its own (with the form library, the schemas and the live check), fetched
+// once the page is on screen: the heading and the lead, the page's largest text, wait only for
+// this small file instead of for everything the form needs.
+const OpenCaseForm = lazy(() => import('../../../features/cases/components/open-case-form').then((m) => ({ default: m.OpenCaseForm })));
 
 export default function OpenCaseRoute() {
   const [params, setParams] = useSearchParams();
@@ -31,7 +36,9 @@ export default function OpenCaseRoute() {
           ) : (
             <BatchChooser onChoose={(id) => setParams({ batch: String(id) })} />
           )}
-          <OpenCaseForm key={batchId ?? 'none'} batch={batch.data ?? null} onOpened={(created) => void navigate(`/cases/${created.id}`)} />
+          <Suspense fallback={<Spinner label="Opening the form…" />}>
+            <OpenCaseForm key={batchId ?? 'none'} batch={batch.data ?? null} onOpened={(created) => void navigate(`/cases/${created.id}`)} />
+          </Suspense>
         </>
       )}
     </ContentLayout>
