@@ -8,7 +8,7 @@ import { getSequelize } from '../../server/src/db/sequelize';
 import { TEST_ORIGIN } from '../setup/test-app';
 import { join, useLiveServer } from '../setup/live-server';
 import { createBatch, createCase } from '../factories/cases';
-import { captureLog } from '../factories/steward-data';
+import { captureLog, insertMessage } from '../factories/steward-data';
 import { outboxFor } from '../factories/threads';
 import { createUser, FACTORY_PASSWORD, uniqueEmail } from '../factories/users';
 
@@ -115,6 +115,23 @@ describe('ASVS 16.3.2: refused access is logged', () => {
     await settle();
     expect(security('case.access_refused')).toEqual(Array.from({ length: 3 }, () => expect.objectContaining({ userId: b.user.id, caseId })));
     expect(security('batch.access_refused')).toEqual([expect.objectContaining({ userId: b.user.id, batchId: batch.id })]);
+  });
+
+  test("ASVS 16.3.2: when grower B reports a message in A's case, or grower A reports an aside in their own, then 404 and each refusal is logged; a message that does not exist is not", async () => {
+    const a = await person('grower');
+    const b = await person('grower');
+    const caseId = await createCase(a.user.id);
+    const text = await insertMessage(caseId, a.user.id, 'The jar smells of nail varnish.');
+    const aside = await insertMessage(caseId, null, 'Mentors only: check the sugar ratio first.', 'aside');
+    const report = (id: number, who: { cookie: string }) => post(`/api/messages/${id}/reports`, { reason: 'Probing.' }, { cookie: who.cookie });
+    expect((await report(text, b)).status).toBe(404);
+    expect((await report(aside, a)).status).toBe(404);
+    expect((await report(999999999, b)).status).toBe(404);
+    await settle();
+    expect(security('message.access_refused')).toEqual([
+      expect.objectContaining({ userId: b.user.id, messageId: text, caseId }),
+      expect.objectContaining({ userId: a.user.id, messageId: aside, caseId }),
+    ]);
   });
 
   test("ASVS 16.3.2: when a socket handshake comes from a foreign Origin or without a session, or grower B's socket asks to join A's case, then each is logged", async () => {

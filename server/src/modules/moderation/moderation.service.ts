@@ -15,7 +15,12 @@ import { moderationRepository } from './moderation.repository';
 export async function reportMessage(user: Express.User, messageId: number, reason: string): Promise<ReportReceipt> {
   const message = await moderationRepository.findMessage(messageId);
   const caseRow = message ? await findCaseForAccess(message.caseId) : null;
-  if (!message || !caseRow || !canReadCase(user, caseRow) || (message.kind === 'aside' && !seesAsides(user))) throw notFound('That message');
+  if (!message || !caseRow) throw notFound('That message');
+  if (!canReadCase(user, caseRow) || (message.kind === 'aside' && !seesAsides(user))) {
+    // A message that exists, asked for by someone it is hidden from: probing, worth a record.
+    log.security('message.access_refused', { userId: user.id, messageId, caseId: message.caseId });
+    throw notFound('That message');
+  }
   if (message.kind === 'system') throw new AppError(400, 'cannot_report', 'Status lines are written by Sporewell and cannot be reported.');
   if (message.hidden) throw conflict('already_hidden', 'A steward has already hidden this message.');
 
