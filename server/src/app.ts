@@ -34,7 +34,7 @@ export function buildApp(ctx: AppContext): Express {
   app.set('trust proxy', config.TRUST_PROXY ? 1 : false);
   app.set('query parser', 'extended');
 
-  app.use(securityHeaders());
+  app.use(securityHeaders({ hsts: config.secureCookies }));
   // Growers are often on weak rural connections: compress text responses (JS, CSS, JSON).
   app.use(compression());
 

@@ -6,7 +6,8 @@ import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import helmet from 'helmet';
 import { AppError } from './errors';
 
-export function securityHeaders(): RequestHandler {
+/** `hsts`: the public address is https, so browsers are told to use nothing else for it. */
+export function securityHeaders({ hsts }: { hsts: boolean }): RequestHandler {
   return helmet({
     contentSecurityPolicy: {
       useDefaults: false,
@@ -26,7 +27,8 @@ export function securityHeaders(): RequestHandler {
     },
     referrerPolicy: { policy: 'same-origin' },
     crossOriginEmbedderPolicy: false,
-    strictTransportSecurity: false,
+    // 180 days, this host only: a deployment's other subdomains are not ours to bind to https.
+    strictTransportSecurity: hsts ? { maxAge: 180 * 24 * 3600, includeSubDomains: false } : false,
   });
 }
 

@@ -22,6 +22,16 @@ import { SessionReader, type SessionRead } from './session-reader';
 
 export const SESSION_COOKIE = 'sporewell.sid';
 
+/**
+ * Behind https the cookie carries the `__Host-` prefix (RFC 6265bis §4.1.3.2, ASVS 3.3.1): a
+ * browser then takes it only when Secure, host-only and on path /, so neither a sibling
+ * subdomain nor a plain-http page can plant or shadow it. Plain http (local use) keeps the
+ * bare name, which a browser would refuse with the prefix.
+ */
+export function sessionCookieName(secure: boolean): string {
+  return secure ? `__Host-${SESSION_COOKIE}` : SESSION_COOKIE;
+}
+
 /** The most the stored expiry may lag behind an active session's rolling one. */
 export const TOUCH_EVERY_MS = 60_000;
 
@@ -124,7 +134,7 @@ export function createSessionKit(config: Config): SessionKit {
     Math.min(TOUCH_EVERY_MS, Math.floor(idleMs / 10)),
   );
   const middleware = session({
-    name: SESSION_COOKIE,
+    name: sessionCookieName(config.secureCookies),
     secret: config.SESSION_SECRET,
     store,
     resave: false,

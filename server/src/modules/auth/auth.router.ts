@@ -3,7 +3,7 @@ import passport from 'passport';
 import { z } from 'zod';
 import { emailSchema, loginSchema, passwordSchema, registerSchema } from '../../../shared/auth-schemas';
 import type { AppContext } from '../../context';
-import { destroyUserSessions } from '../../lib/session';
+import { destroyUserSessions, sessionCookieName } from '../../lib/session';
 import { AppError } from '../../lib/errors';
 import { parseOr400, requireUser } from '../../lib/http';
 import { log } from '../../lib/logger';
@@ -60,7 +60,7 @@ export function authRouter(ctx: AppContext): Router {
   router.post('/logout', async (req, res) => {
     if (req.user) log.security('auth.sign_out', { userId: req.user.id });
     if (req.session) await signOut(req);
-    res.clearCookie('sporewell.sid', { path: '/', httpOnly: true, sameSite: 'lax', secure: config.secureCookies });
+    res.clearCookie(sessionCookieName(config.secureCookies), { path: '/', httpOnly: true, sameSite: 'lax', secure: config.secureCookies });
     res.status(204).end();
   });
 
