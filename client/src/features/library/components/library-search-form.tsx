@@ -2,14 +2,16 @@ import { useId, useState, type FormEvent } from 'react';
 import { LIBRARY_KINDS, MAX_QUERY_CHARS, type LibraryKind } from '@shared/library-schemas';
 import { STAGES, SYMPTOM_GROUPS, SYMPTOMS, type StageId } from '@shared/vocabulary';
 import { Button } from '../../../components/ui/button';
+import { useAddressFilters } from '../../../lib/use-address-filters';
 import type { LibrarySearch } from '../api/search-library';
 
 const KIND_LABELS: Record<LibraryKind | 'all', string> = { all: 'Everything', guide: 'Guides', note: 'Field notes' };
 const selectClasses = 'min-h-12 w-full rounded-soft border-2 border-loam-soft bg-rice px-3 py-2 text-lg text-loam';
 
 /** Words, stage, sign and kind. The words go on "Search"; a filter applies as soon as it changes. */
-export function LibrarySearchForm({ search, onChange }: { search: LibrarySearch; onChange: (next: LibrarySearch) => void }) {
+export function LibrarySearchForm({ search: address, onChange }: { search: LibrarySearch; onChange: (next: LibrarySearch) => void }) {
   const id = useId();
+  const [search, choose] = useAddressFilters(address, onChange);
   const [words, setWords] = useState(search.q ?? '');
   // A new address (back button, a link) brings its words into the box.
   const [shownQ, setShownQ] = useState(search.q);
@@ -17,7 +19,7 @@ export function LibrarySearchForm({ search, onChange }: { search: LibrarySearch;
     setShownQ(search.q);
     setWords(search.q ?? '');
   }
-  const apply = (change: Partial<LibrarySearch>) => onChange({ ...search, ...change, page: undefined });
+  const apply = (change: Partial<LibrarySearch>) => choose({ ...change, page: undefined });
   const submit = (event: FormEvent) => {
     event.preventDefault();
     apply({ q: words.trim() || undefined });

@@ -3,6 +3,7 @@ import { CASE_STATUSES, STATUS_LABELS } from '@shared/case-status';
 import { STAGES, SYMPTOM_GROUPS, SYMPTOMS } from '@shared/vocabulary';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { cx } from '../../../components/ui/cx';
+import { useAddressFilters } from '../../../lib/use-address-filters';
 import { AGE_BANDS, DEFAULT_FILTERS, type RoundsFilters, type RoundsSort } from '../lib/rounds-filters';
 
 const SORT_WORDS: Record<RoundsSort, string> = {
@@ -25,12 +26,13 @@ function Field({ label, children, id }: { label: string; children: ReactNode; id
 }
 
 /** Every change applies at once and lands in the address bar (see rounds-filters.ts). */
-export function RoundsFiltersForm({ filters, onChange }: { filters: RoundsFilters; onChange: (next: RoundsFilters) => void }) {
+export function RoundsFiltersForm({ filters: address, onChange }: { filters: RoundsFilters; onChange: (next: RoundsFilters) => void }) {
+  const [filters, choose] = useAddressFilters(address, onChange);
   const id = useId();
   // On a phone the five controls would push the cases below the fold; they fold away there.
   const [shown, setShown] = useState(false);
   // Any filter change starts again at page 1: page 3 of a narrower list may not exist.
-  const set = (change: Partial<RoundsFilters>) => onChange({ ...filters, ...change, page: 1 });
+  const set = (change: Partial<RoundsFilters>) => choose({ ...change, page: 1 });
   const active = [filters.status !== DEFAULT_FILTERS.status, filters.stage, filters.symptom, filters.age, filters.mine].filter(Boolean).length;
   const changed = active > 0 || filters.sort !== DEFAULT_FILTERS.sort;
 
@@ -120,7 +122,7 @@ export function RoundsFiltersForm({ filters, onChange }: { filters: RoundsFilter
             Only cases I hold
           </label>
           {changed && (
-            <Button variant="quiet" className="px-2!" onClick={() => onChange(DEFAULT_FILTERS)}>
+            <Button variant="quiet" className="px-2!" onClick={() => choose(DEFAULT_FILTERS)}>
               Clear filters
             </Button>
           )}
