@@ -138,7 +138,8 @@ function threadNote(name: string, r: ThreadLoadResult, stored: number | null): s
     `${int(r.sent)} sent in ${r.sendSeconds.toFixed(1)} s (${int(r.sent / r.sendSeconds)}/s), ${int(r.acked)} acked (failures: ${failures}), ` +
     `${stored === null ? '' : `${int(stored)} stored, `}${int(r.received)} received; delivery p50 ${ms(r.latency.p50)} p95 ${ms(r.latency.p95)} p99 ${ms(r.latency.p99)} max ${ms(r.latency.max)} ` +
     `(p95 ${ms(r.latencyByHalf[0].p95)} in the first half of the sending, ${ms(r.latencyByHalf[1].p95)} in the second); ` +
-    `ack p95 ${ms(r.ackLatency.p95)}, ack to receipt p50 ${ms(r.afterAck.p50)} p95 ${ms(r.afterAck.p95)}; lost ${r.lost}, duplicated ${r.duplicated}, misdelivered ${r.misdelivered}, dropped sockets ${r.disconnects}` +
+    `ack p95 ${ms(r.ackLatency.p95)}, ack to receipt p50 ${ms(r.afterAck.p50)} p95 ${ms(r.afterAck.p95)}; lost ${r.lost}, duplicated ${r.duplicated}, misdelivered ${r.misdelivered}, dropped sockets ${r.disconnects}; ` +
+    `the clients' event loop late by p50 ${ms(r.clientLoopDelay.p50)} p99 ${ms(r.clientLoopDelay.p99)} max ${ms(r.clientLoopDelay.max)}; load average ${r.loadAverage[0].toFixed(1)} to ${r.loadAverage[1].toFixed(1)}` +
     (cpu ? `; CPU ms per message ${stored === null ? 'sent' : 'stored'}: ${cpu}` : '')
   );
 }

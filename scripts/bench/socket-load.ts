@@ -8,7 +8,8 @@
 // `drainMs` more for what is still on its way.
 // Every message carries a unique clientId, which is how receipts are counted: once is right,
 // twice is a duplicate, never (for a message whose ack said stored) is a loss.
-import { performance } from 'node:perf_hooks';
+import os from 'node:os';
+import { monitorEventLoopDelay, performance } from 'node:perf_hooks';
 import { io as connectClient, type Socket } from 'socket.io-client';
 import type { CpuProbe } from './cpu-usage';
 import { percentiles } from './stats';
@@ -65,6 +66,10 @@ export interface ThreadLoadResult {
   cpuMs: Record<string, number | null>;
   /** every clientId of this run starts with it (to count what the server stored) */
   clientIdPrefix: string;
+  /** how late this process's event loop ran its callbacks over the sending and draining, in ms */
+  clientLoopDelay: { p50: number; p99: number; max: number };
+  /** the 1-minute load average when the sending started and when the draining ended */
+  loadAverage: [number, number];
 }
 
 type Client = Socket;
@@ -161,6 +166,11 @@ export async function runThreadLoad(options: ThreadLoadOptions): Promise<ThreadL
     let sent = 0;
     const probes = Object.entries(options.cpu ?? {}).map(([name, make]) => [name, make()] as const);
     const sendStarted = performance.now();
+    const loadAtStart = os.loadavg()[0];
+    // The clients' own event loop: a receipt waits for it, so a busy bench process adds to the
+    // latency of both runs alike (the same sockets, the same load, in this process).
+    const loopDelay = monitorEventLoopDelay({ resolution: 1 });
+    loopDelay.enable();
     const sendOne = (k: number) => {
       const socket = sockets[sender(k)];
       const fail = (code: string) => {
@@ -211,6 +221,8 @@ export async function runThreadLoad(options: ThreadLoadOptions): Promise<ThreadL
     // A short grace for duplicates that would arrive just after the last first receipt.
     await new Promise((r) => setTimeout(r, 300));
     running = false;
+    loopDelay.disable();
+    const loadAtEnd = os.loadavg()[0];
     const cpuMs = Object.fromEntries(
       probes.map(([name, probe]) => {
         const used = probe.read();
@@ -254,6 +266,8 @@ export async function runThreadLoad(options: ThreadLoadOptions): Promise<ThreadL
       afterAck: percentiles(afterAck),
       cpuMs,
       clientIdPrefix: prefix,
+      clientLoopDelay: { p50: loopDelay.percentile(50) / 1e6, p99: loopDelay.percentile(99) / 1e6, max: loopDelay.max / 1e6 },
+      loadAverage: [loadAtStart, loadAtEnd],
     };
   } finally {
     running = false;
