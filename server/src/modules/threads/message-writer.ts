@@ -114,7 +114,8 @@ judged AS MATERIALIZED (
     -- The writer and their session, one probe each per post, joined to the post itself: a join
     -- of two row sets of the batch on ord is planned as a nested loop (the planner guesses one
     -- row for the filtered side), which cost the square of the batch (about 10 ms at 200 posts).
-    -- The session's JSON is parsed once a post, not once a field.
+    -- The session's JSON is parsed once a post, not once a field. OFFSET 0 keeps each subquery
+    -- a probe of its own (not pulled up into a join the planner might make a scan of users).
     LEFT JOIN LATERAL (
       SELECT u.display_name, u.role FROM users u
        WHERE u.id = i.author_id AND u.role = i.role AND NOT u.disabled
@@ -123,6 +124,7 @@ judged AS MATERIALIZED (
             WHERE s.expire > now() AND s.sess -> 'passport' ->> 'user' = u.id::text
               AND ((s.sess ->> 'startedAt') IS NULL OR (s.sess ->> 'startedAt') !~ '^[0-9]+(\\.[0-9]+)?$'
                    OR (s.sess ->> 'startedAt')::float8 >= i.started_after)))
+      OFFSET 0
     ) a ON true
     LEFT JOIN locked l ON l.id = i.case_id
     LEFT JOIN known k ON k.id = i.case_id
