@@ -1,8 +1,9 @@
 // The socket.io contract between server and client (PRODUCT.md "Socket.io"; issue: rounds and
 // live threads). Payloads are validated on the server with these schemas.
 import { z } from 'zod';
+import { MESSAGE_MAX } from './thread-limits';
 
-export const MESSAGE_MAX = 5000;
+export { MESSAGE_MAX };
 export const messageKindSchema = z.enum(['text', 'aside']);
 export type MessageKind = 'text' | 'aside' | 'system';
 

@@ -3,6 +3,7 @@
 import { z } from 'zod';
 import type { Role } from './case-status';
 import { roleSchema } from './case-status-schemas';
+import { REASON_MAX } from './moderation-limits';
 import type { StageId } from './vocabulary';
 import { stageSchema } from './vocabulary-schemas';
 import type { MentorLoad, OpenByUrgency, RecoveryRate, WeekReplyTimes, WeekStageCounts } from './metrics';
@@ -103,7 +104,7 @@ export interface AuditEntry {
 // ---------------------------------------------------------------------------------------------
 // Moderation
 
-export const REASON_MAX = 500;
+export { REASON_MAX };
 
 export const reportMessageSchema = z.object({
   reason: z

@@ -1,13 +1,18 @@
-import { useEffect, useId, useRef, useState } from 'react';
+import { lazy, Suspense, useEffect, useId, useRef, useState } from 'react';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ClosingState } from '@shared/closing-schemas';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
+import { Spinner } from '../../../components/ui/spinner';
 import { api } from '../../../lib/api-client';
 import { useClosing } from '../api/get-closing';
 import { refreshAfterClosing } from '../api/refresh-after-closing';
 import { ClosingRecord } from './closing-record';
-import { CloseCaseForm } from './close-case-form';
+
+// The form (with the form library and zod) is fetched when someone opens it: everyone who reads a
+// case loads this panel, and most of them (the grower, other mentors) never close it.
+const loadForm = () => import('./close-case-form');
+const CloseCaseForm = lazy(() => loadForm().then((m) => ({ default: m.CloseCaseForm })));
 
 /**
  * On the case page: for the mentor holding the case (or a steward) while it is open, closing it
@@ -54,19 +59,22 @@ export function CloseCasePanel({ caseId }: { caseId: number }) {
       {!closed && !open && (
         <div className="flex flex-col gap-3">
           <p>When there is a likely cause and a remedy to try, record them here. The grower then tells us how the batch does.</p>
-          <Button ref={openButtonRef} className="self-start" onClick={() => setOpen(true)}>
+          {/* Fetched as soon as a pointer or the keyboard reaches the button, so it is usually here by the click. */}
+          <Button ref={openButtonRef} className="self-start" onPointerEnter={() => void loadForm()} onFocus={() => void loadForm()} onClick={() => setOpen(true)}>
             Close the case…
           </Button>
         </div>
       )}
       {!closed && open && (
-        <CloseCaseForm
-          caseId={caseId}
-          onCancel={() => {
-            setOpen(false);
-            setBackToButton(true);
-          }}
-        />
+        <Suspense fallback={<Spinner label="Opening the form…" />}>
+          <CloseCaseForm
+            caseId={caseId}
+            onCancel={() => {
+              setOpen(false);
+              setBackToButton(true);
+            }}
+          />
+        </Suspense>
       )}
       {closed && <ClosingRecord state={state} />}
       {state.can.closeAsLost && <CloseAsLost state={state} />}

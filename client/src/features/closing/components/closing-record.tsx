@@ -1,5 +1,6 @@
 import { Link } from 'react-router';
-import { OUTCOME_LABELS, type ClosingState } from '@shared/closing-schemas';
+import type { ClosingState } from '@shared/closing-schemas';
+import { OUTCOME_LABELS } from '@shared/outcomes';
 import { CAUSES, REMEDIES, labelOf } from '@shared/vocabulary';
 
 const dayText = (iso: string) => new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long' }).format(new Date(iso));

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { REASON_MAX, reportMessageSchema } from '@shared/steward-schemas';
+import { REASON_MAX } from '@shared/moderation-limits';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { cx } from '../../../components/ui/cx';
@@ -19,7 +19,9 @@ export function ReportMessageButton({ messageId, authorName, className }: { mess
   const [sent, setSent] = useState(false);
   const report = useReportMessage();
 
-  const send = () => {
+  const send = async () => {
+    // zod comes only when a report is sent: the thread shows this button on every message.
+    const { reportMessageSchema } = await import('@shared/steward-schemas');
     const parsed = reportMessageSchema.safeParse({ reason });
     if (!parsed.success) {
       setProblem(parsed.error.issues[0]?.message);
@@ -56,7 +58,7 @@ export function ReportMessageButton({ messageId, authorName, className }: { mess
         title="Report this message to the stewards"
         confirmLabel="Send the report"
         busy={report.isPending}
-        onConfirm={send}
+        onConfirm={() => void send()}
         onCancel={() => {
           setOpen(false);
           setProblem(undefined);

@@ -1,5 +1,5 @@
 import { useId, useRef, useState, type FormEvent, type KeyboardEvent } from 'react';
-import { MESSAGE_MAX } from '@shared/socket-events';
+import { MESSAGE_MAX } from '@shared/thread-limits';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { cx } from '../../../components/ui/cx';
 import { isApiError } from '../../../lib/api-client';
