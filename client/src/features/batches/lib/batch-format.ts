@@ -1,4 +1,5 @@
 import { STAGES, labelOf } from '@shared/vocabulary';
+import { dayMonthYear } from '../../../lib/english-dates';
 
 /** "IMO2" → "IMO2 — culture kept with sugar" */
 export function stageLabel(stage: string): string {
@@ -13,12 +14,7 @@ export function ageText(days: number): string {
 /** "3 March 2026", read as a calendar day (no time-zone shift). */
 export function formatMadeOn(madeOn: string, style: 'long' | 'short' = 'long'): string {
   const [y, m, d] = madeOn.split('-').map(Number);
-  return new Intl.DateTimeFormat('en-GB', {
-    day: 'numeric',
-    month: style === 'long' ? 'long' : 'short',
-    year: 'numeric',
-    timeZone: 'UTC',
-  }).format(new Date(Date.UTC(y, m - 1, d)));
+  return dayMonthYear(y, m, d, style);
 }
 
 /** Today as YYYY-MM-DD in the grower's time zone, for a date input's default. */

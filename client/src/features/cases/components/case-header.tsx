@@ -6,6 +6,7 @@ import { formatMass } from '@shared/units';
 import type { UrgencyLevel } from '@shared/urgency';
 import { STAGES, SYMPTOMS, labelOf } from '@shared/vocabulary';
 import { cx } from '../../../components/ui/cx';
+import { dayMonthTime } from '../../../lib/english-dates';
 import { RiskBadge } from '../../batch-check/components/risk-badge';
 import { ratioText } from '../../batch-check/components/ratio-text';
 import { WaterActivityScale } from '../../batch-check/components/water-activity-scale';
@@ -28,9 +29,6 @@ const URGENCY_TONES: Record<UrgencyLevel, string> = {
   low: 'border-line bg-rice text-loam',
 };
 
-function openedText(iso: string): string {
-  return new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', hour: '2-digit', minute: '2-digit' }).format(new Date(iso));
-}
 
 /** The top of a case: what it is about, where it stands and how urgent it is. */
 export function CaseHeader({ detail, viewerId }: { detail: CaseDetail; viewerId: number | null }) {
@@ -58,7 +56,7 @@ export function CaseHeader({ detail, viewerId }: { detail: CaseDetail; viewerId:
           <span className="rounded-full border-2 border-line bg-rice-deep px-3 py-0.5 font-bold">{labelOf(STAGES, detail.stage)}</span>
         </div>
         <p className="text-loam-soft">
-          Opened {openedText(detail.openedAt)} by {detail.grower.displayName}
+          Opened {dayMonthTime(new Date(detail.openedAt))} by {detail.grower.displayName}
           {detail.mentor ? <> · with {detail.mentor.displayName}</> : <> · waiting for a mentor</>}
         </p>
       </div>

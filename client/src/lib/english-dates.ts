@@ -1,0 +1,19 @@
+// Dates in the app's English forms, as Intl.DateTimeFormat('en-GB') writes them, put together by
+// hand. The first Intl.DateTimeFormat a page makes loads the browser's date data: 70-170 ms at
+// Lighthouse's 4x CPU slowdown in CPU profiles of the case page and "open a case", on the main
+// thread before either page's text could show. tests/unit/english-dates.test.ts holds these to
+// Intl's own output.
+const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
+// en-GB's abbreviations (four letters for September).
+const SHORT_MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sept', 'Oct', 'Nov', 'Dec'];
+const twoDigits = (n: number) => String(n).padStart(2, '0');
+
+/** "3 March 2026", or "3 Mar 2026" short, for a calendar day (month 1-12). */
+export function dayMonthYear(year: number, month: number, day: number, style: 'long' | 'short' = 'long'): string {
+  return `${day} ${(style === 'long' ? MONTHS : SHORT_MONTHS)[month - 1]} ${year}`;
+}
+
+/** "3 March at 14:05", in the reader's time zone. */
+export function dayMonthTime(at: Date): string {
+  return `${at.getDate()} ${MONTHS[at.getMonth()]} at ${twoDigits(at.getHours())}:${twoDigits(at.getMinutes())}`;
+}

@@ -1,0 +1,35 @@
+// The hand-made English dates against Intl.DateTimeFormat('en-GB') itself, the forms they stand in for.
+import { describe, expect, test } from 'vitest';
+import { dayMonthTime, dayMonthYear } from '../../client/src/lib/english-dates';
+import { formatMadeOn } from '../../client/src/features/batches/lib/batch-format';
+
+const DAY = 24 * 60 * 60 * 1000;
+
+describe('English dates without Intl', () => {
+  test('when every day of a leap year is written long and short, then each reads as Intl en-GB writes it', () => {
+    const long = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+    const short = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+    for (let t = Date.UTC(2028, 0, 1); t < Date.UTC(2029, 0, 1); t += DAY) {
+      const d = new Date(t);
+      const [y, m, day] = [d.getUTCFullYear(), d.getUTCMonth() + 1, d.getUTCDate()];
+      expect(dayMonthYear(y, m, day)).toBe(long.format(d));
+      expect(dayMonthYear(y, m, day, 'short')).toBe(short.format(d));
+    }
+  });
+
+  test('when a moment is written with its clock, then it reads as Intl en-GB writes it in the same time zone', () => {
+    const intl = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', hour: '2-digit', minute: '2-digit' });
+    // Every month, through midnight, the small hours and the last minute of a day.
+    for (let t = Date.UTC(2026, 0, 1); t < Date.UTC(2027, 0, 1); t += 7 * DAY + 3_607_000) {
+      for (const offset of [0, 5 * 60_000, 11 * 3_600_000, 23 * 3_600_000 + 59 * 60_000]) {
+        const at = new Date(t + offset);
+        expect(dayMonthTime(at)).toBe(intl.format(at));
+      }
+    }
+  });
+
+  test('when a batch day is given as YYYY-MM-DD, then it reads as that calendar day', () => {
+    expect(formatMadeOn('2026-03-03')).toBe('3 March 2026');
+    expect(formatMadeOn('2026-09-30', 'short')).toBe('30 Sept 2026');
+  });
+});
