@@ -5,16 +5,32 @@ import { Link } from 'react-router';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import type { PublicUser } from '@shared/auth-schemas';
 import { cx } from '../../../components/ui/cx';
-import { useLiveSocket } from '../../../lib/socket';
+import { useLiveSocket, type LiveSocket } from '../../../lib/socket';
 import { myCasesQueryOptions } from '../../cases/api/get-my-cases';
 import { useUnread } from '../api/get-unread';
 import { threadKeys } from '../api/thread-keys';
 import { useThreadDelivery } from '../hooks/use-thread-delivery';
 
-export function UnreadBadge({ user, className }: { user: PublicUser | null; className?: string }) {
+// One pair of listeners per socket however many badges there are (the header has one for wide
+// screens and one for phones), so a hint or a reconnect asks for the counts once, not twice.
+const wired = new WeakSet<LiveSocket>();
+
+function useUnreadHints(): void {
   const socket = useLiveSocket();
-  useThreadDelivery();
   const queryClient = useQueryClient();
+  useEffect(() => {
+    if (!socket || wired.has(socket)) return;
+    wired.add(socket);
+    const refresh = () => void queryClient.invalidateQueries({ queryKey: threadKeys.unread() });
+    socket.on('unread', refresh);
+    // Anything may have arrived while the connection was down.
+    socket.on('connect', refresh);
+  }, [socket, queryClient]);
+}
+
+export function UnreadBadge({ user, className }: { user: PublicUser | null; className?: string }) {
+  useUnreadHints();
+  useThreadDelivery();
   const unread = useUnread(user !== null);
   const [open, setOpen] = useState(false);
   const panelId = useId();
@@ -22,18 +38,6 @@ export function UnreadBadge({ user, className }: { user: PublicUser | null; clas
   const buttonRef = useRef<HTMLButtonElement>(null);
   // Titles only when the list is opened: the count alone needs no more than the unread route.
   const titles = useQuery({ ...myCasesQueryOptions(), enabled: open });
-
-  useEffect(() => {
-    if (!socket) return;
-    const refresh = () => void queryClient.invalidateQueries({ queryKey: threadKeys.unread() });
-    socket.on('unread', refresh);
-    // Anything may have arrived while the connection was down.
-    socket.on('connect', refresh);
-    return () => {
-      socket.off('unread', refresh);
-      socket.off('connect', refresh);
-    };
-  }, [socket, queryClient]);
 
   useEffect(() => {
     if (!open) return;
