@@ -36,7 +36,14 @@ export default function OpenCaseRoute() {
           ) : (
             <BatchChooser onChoose={(id) => setParams({ batch: String(id) })} />
           )}
-          <Suspense fallback={<Spinner label="Opening the form…" />}>
+          {/* The fallback holds a screen's height, so the footer is not in view to be pushed down when the form comes (a layout shift). */}
+          <Suspense
+            fallback={
+              <div className="min-h-dvh">
+                <Spinner label="Opening the form…" />
+              </div>
+            }
+          >
             <OpenCaseForm key={batchId ?? 'none'} batch={batch.data ?? null} onOpened={(created) => void navigate(`/cases/${created.id}`)} />
           </Suspense>
         </>
