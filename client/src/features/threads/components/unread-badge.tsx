@@ -23,8 +23,13 @@ function useUnreadHints(): void {
     wired.add(socket);
     const refresh = () => void queryClient.invalidateQueries({ queryKey: threadKeys.unread() });
     socket.on('unread', refresh);
-    // Anything may have arrived while the connection was down.
-    socket.on('connect', refresh);
+    // Anything may have arrived while the connection was down: ask again on a reconnect. Not on
+    // the first connect, which comes while the page's own first ask is still fresh.
+    let connectedBefore = socket.connected;
+    socket.on('connect', () => {
+      if (connectedBefore) refresh();
+      connectedBefore = true;
+    });
   }, [socket, queryClient]);
 }
 
