@@ -2,7 +2,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
-import { inject } from 'vitest';
+import { afterAll, beforeAll, inject } from 'vitest';
 
 export const CHROMIUM = process.env.CHROME_PATH ?? '/usr/bin/chromium';
 export const SCREENSHOTS = path.resolve('test-results/screenshots');
@@ -27,6 +27,30 @@ export function baseUrl(): string {
 
 export async function newContext(browser: Browser, device: typeof PHONE | typeof DESKTOP = DESKTOP): Promise<BrowserContext> {
   return browser.newContext({ ...device, baseURL: baseUrl() });
+}
+
+/**
+ * One browser for a test file, launched before its tests and closed after them with every page
+ * it opened: `newPage(device)` gives a page in a fresh context (its own cookies).
+ */
+export function useBrowser(): { newPage(device?: typeof PHONE | typeof DESKTOP): Promise<Page> } {
+  let browser: Browser | undefined;
+  const contexts: BrowserContext[] = [];
+  beforeAll(async () => {
+    browser = await launch();
+  });
+  afterAll(async () => {
+    for (const context of contexts) await context.close();
+    await browser?.close();
+  });
+  return {
+    async newPage(device = DESKTOP) {
+      if (!browser) throw new Error('useBrowser(): the browser starts in beforeAll; ask for pages inside tests.');
+      const context = await newContext(browser, device);
+      contexts.push(context);
+      return context.newPage();
+    },
+  };
 }
 
 export async function shot(page: Page, name: string): Promise<void> {

@@ -1,25 +1,15 @@
 // Filter menus whose choice lives in the address: quick arrow-key presses on a focused <select>
 // must all count, even while the navigation each one starts is still waiting for the page's
 // data (the Field Library's route loads its results before the address changes).
-import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
-import { DESKTOP, launch, newContext, signIn } from './browser';
+import { describe, expect, test } from 'vitest';
+import type { Locator, Page } from 'playwright-core';
+import { signIn, useBrowser } from './browser';
 
 const WAIT = { timeout: 20_000 };
-let browser: Browser;
-const contexts: BrowserContext[] = [];
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  for (const context of contexts) await context.close();
-  await browser?.close();
-});
+const chromium = useBrowser();
 
 async function freshPage(): Promise<Page> {
-  const context = await newContext(browser, DESKTOP);
-  contexts.push(context);
-  const page = await context.newPage();
+  const page = await chromium.newPage();
   // Each answer is held back a little, as on a slow rural connection, so that the presses below
   // come while the navigation they start is still under way.
   await page.route('**/api/**', async (route) => {

@@ -1,21 +1,11 @@
-import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { DESKTOP, launch, newContext, PHONE, shot, signIn } from './browser';
+import { describe, expect, test } from 'vitest';
+import type { Page } from 'playwright-core';
+import { DESKTOP, PHONE, shot, signIn, useBrowser } from './browser';
 
-let browser: Browser;
-const contexts: BrowserContext[] = [];
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  for (const context of contexts) await context.close();
-  await browser?.close();
-});
+const chromium = useBrowser();
 
 async function signedInPage(email: string, device: typeof PHONE | typeof DESKTOP): Promise<Page> {
-  const context = await newContext(browser, device);
-  contexts.push(context);
-  const page = await context.newPage();
+  const page = await chromium.newPage(device);
   await signIn(page, email);
   await expect.poll(() => new URL(page.url()).pathname, WAIT).not.toBe('/sign-in');
   return page;
@@ -85,9 +75,7 @@ describe('closing a case into the Field Library', () => {
 
     // A visitor, not signed in, finds it by misspelt words.
     for (const [name, device] of [['desktop', DESKTOP], ['phone', PHONE]] as const) {
-      const context = await newContext(browser, device);
-      contexts.push(context);
-      const visitor = await context.newPage();
+      const visitor = await chromium.newPage(device);
       await visitor.goto('/library');
       await visitor.getByRole('searchbox', { name: 'Search in your own words' }).fill('plumm foamng');
       await visitor.getByRole('button', { name: 'Search' }).click();
