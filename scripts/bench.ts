@@ -52,7 +52,8 @@ const ROUNDS = { openCases: 500, pageSize: 50, connections: 100, warmupSeconds: 
 const THREAD = { rooms: 500, mentors: 50, ratePerSecond: Number(process.env.BENCH_THREAD_RATE ?? 1500), seconds: 10, drainMs: 10_000 };
 // autocannon's overallRate gives each of `connections` connections its share per second, sent at
 // the start of each second: 50 connections × 1/s is 50 sign-ins arriving together every second.
-const SIGN_IN = { ratePerSecond: 50, seconds: 5, connections: 50, accounts: 10, hashSamples: 20 };
+// anchorCapacity: QUALITY.md's "argon2id at the OWASP minimum ~25 ms, ~85/s on 2 cores".
+const SIGN_IN = { ratePerSecond: 50, seconds: 5, accounts: 10, hashSamples: 20, capacitySeconds: 3, anchorCapacity: 85 };
 const BUDGET = { searchP95: 25, agreement: 80, roundsRatio: 0.5, roundsP99: 100, threadFactor: 2, signInP95: 1000, landingKB: 150 };
 const IDLE_MINUTES = 3 * 24 * 60;
 
@@ -273,34 +274,58 @@ async function main(): Promise<number> {
 
       if (groups.has('signin')) {
         try {
-          // The hash alone, here, at the parameters the server uses (argon2id, 19 MiB, t = 2, p = 1).
+          // The hash alone, here, at the parameters the server uses (argon2id, 19 MiB, t = 2, p = 1):
+          // one at a time, then as many at once as there are cores, for the most verifications a
+          // second this machine can do with nothing else running.
+          const hashOptions = { type: argon2.argon2id, memoryCost: 19456, timeCost: 2, parallelism: 1 } as const;
           const hashTimes: number[] = [];
           for (let i = 0; i < SIGN_IN.hashSamples; i++) {
             const at = performance.now();
-            await argon2.hash(`bench-password-${i}`, { type: argon2.argon2id, memoryCost: 19456, timeCost: 2, parallelism: 1 });
+            await argon2.hash(`bench-password-${i}`, hashOptions);
             hashTimes.push(performance.now() - at);
           }
           const hash = percentiles(hashTimes);
+          const sample = await argon2.hash('bench-password-capacity', hashOptions);
+          const cores = os.cpus().length;
+          let verified = 0;
+          const capacityStart = performance.now();
+          await Promise.all(
+            Array.from({ length: cores }, async () => {
+              while (performance.now() - capacityStart < SIGN_IN.capacitySeconds * 1000) {
+                await argon2.verify(sample, 'bench-password-capacity');
+                verified++;
+              }
+            }),
+          );
+          const capacity = verified / ((performance.now() - capacityStart) / 1000);
+          const burst = async (rate: number) => {
+            let next = 0;
+            return withCpu({ Sporewell: () => processCpu(appChild.proc.pid!), PostgreSQL: () => clusterCpu(cluster.dataDir) }, () => runLoad({
+              url: app.url,
+              connections: rate,
+              seconds: SIGN_IN.seconds,
+              // A fixed count, so the slowest answers of the burst are in the figures too.
+              amount: rate * SIGN_IN.seconds,
+              overallRate: rate,
+              requests: [
+                {
+                  method: 'POST',
+                  path: '/api/auth/login',
+                  headers: { 'content-type': 'application/json', origin: app.url },
+                  setupRequest: (request) => ({ ...request, body: JSON.stringify(data.signInAccounts[next++ % data.signInAccounts.length]) }),
+                },
+              ],
+            }), (r) => r.requests);
+          };
           say(`sign-in burst: ${SIGN_IN.ratePerSecond}/s for ${SIGN_IN.seconds} s over ${SIGN_IN.accounts} accounts…`);
-          let next = 0;
-          const burst = await withCpu({ Sporewell: () => processCpu(appChild.proc.pid!), PostgreSQL: () => clusterCpu(cluster.dataDir) }, () => runLoad({
-            url: app.url,
-            connections: SIGN_IN.connections,
-            seconds: SIGN_IN.seconds,
-            // A fixed count, so the slowest answers of the burst are in the figures too.
-            amount: SIGN_IN.ratePerSecond * SIGN_IN.seconds,
-            overallRate: SIGN_IN.ratePerSecond,
-            requests: [
-              {
-                method: 'POST',
-                path: '/api/auth/login',
-                headers: { 'content-type': 'application/json', origin: app.url },
-                setupRequest: (request) => ({ ...request, body: JSON.stringify(data.signInAccounts[next++ % data.signInAccounts.length]) }),
-              },
-            ],
-          }), (r) => r.requests);
-          const run = burst.result;
+          const full = await burst(SIGN_IN.ratePerSecond);
+          const run = full.result;
           const clean = only2xx(run);
+          // QUALITY.md's anchor machine verifies ~85 hashes a second; the budget's burst is 50/85 of
+          // that. Where this machine verifies fewer, the same share of its own capacity is measured
+          // as well, against the same 1 s.
+          const share = SIGN_IN.ratePerSecond / SIGN_IN.anchorCapacity;
+          const fits = capacity >= SIGN_IN.anchorCapacity;
           rows.push(
             {
               work: `sign-in p95, burst of ${SIGN_IN.ratePerSecond}/s for ${SIGN_IN.seconds} s`,
@@ -309,8 +334,30 @@ async function main(): Promise<number> {
               verdict: clean ? verdict(run.p95 <= BUDGET.signInP95) : 'MISSES',
             },
             { work: 'argon2id hash at the OWASP minimum', measured: `${ms(hash.p50)} median (p95 ${ms(hash.p95)})`, budget: '~25 ms expected', verdict: '' },
+            {
+              work: `argon2id verifications a second, ${cores} at once`,
+              measured: `${capacity.toFixed(1)}/s; the burst of ${SIGN_IN.ratePerSecond}/s is ${Math.round((SIGN_IN.ratePerSecond / capacity) * 100)} % of it${fits ? '' : ' (slower than the anchor)'}`,
+              budget: `~${SIGN_IN.anchorCapacity}/s expected`,
+              verdict: '',
+            },
           );
-          notes.push(`sign-in burst: ${int(run.requests)} answers: ${statusSummary(run)}; CPU ms per sign-in: ${burst.perUnit}`);
+          notes.push(`sign-in burst: ${int(run.requests)} answers: ${statusSummary(run)}; CPU ms per sign-in: ${full.perUnit}`);
+          if (!fits) {
+            const rate = Math.max(1, Math.round(capacity * share));
+            say(`sign-in burst at the anchor's share of this machine's hash capacity: ${rate}/s for ${SIGN_IN.seconds} s…`);
+            const scaled = await burst(rate);
+            rows.push({
+              work: `sign-in p95, burst of ${rate}/s (${Math.round(share * 100)} % of the hash capacity, as 50/s is of ~${SIGN_IN.anchorCapacity}/s)`,
+              measured: `${ms(scaled.result.p95)} (p50 ${ms(scaled.result.p50)}; ${int(scaled.result.requests)} in ${scaled.result.seconds.toFixed(1)} s)`,
+              budget: `≤ ${BUDGET.signInP95 / 1000} s`,
+              verdict: only2xx(scaled.result) ? verdict(scaled.result.p95 <= BUDGET.signInP95) : 'MISSES',
+            });
+            notes.push(
+              `sign-in: this machine verifies ${capacity.toFixed(1)} argon2id hashes a second at most (QUALITY.md's anchor: ~${SIGN_IN.anchorCapacity}/s), ` +
+                `so a burst of ${SIGN_IN.ratePerSecond}/s asks ${Math.round((SIGN_IN.ratePerSecond / capacity) * 100)} % of its cores for the hash alone; ` +
+                `the burst of ${rate}/s asks the same share as the budget's burst does of the anchor. CPU ms per sign-in there: ${scaled.perUnit}`,
+            );
+          }
         } catch (error) {
           failed('sign-in burst', error);
         }

@@ -109,6 +109,24 @@ describe('POST /api/auth/login', () => {
     expect(replay.status).toBe(401);
   });
 
+  test('when someone signs in again over a stored session (no sign-out between), then that session row is deleted and its cookie refused (ASVS 7.2.4)', async () => {
+    const first = await createUser();
+    const second = await createUser();
+    const browser = agent(t.app);
+    const signedIn = await browser.post('/api/auth/login').set(json).send({ email: first.email, password: FACTORY_PASSWORD }).expect(200);
+    const old = cookieOf(signedIn)!;
+    const oldSid = decodeURIComponent(old.split('=')[1]!).replace(/^s:/, '').split('.')[0];
+    const count = async (sid: string) =>
+      (await getSequelize().query<{ n: number }>('SELECT count(*)::int AS n FROM session WHERE sid = :sid', { replacements: { sid }, type: QueryTypes.SELECT }))[0]!.n;
+    expect(await count(oldSid!)).toBe(1);
+    const again = await browser.post('/api/auth/login').set(json).send({ email: second.email, password: FACTORY_PASSWORD }).expect(200);
+    expect(cookieOf(again)).not.toEqual(old);
+    expect(await count(oldSid!)).toBe(0);
+    await agent(t.app).get('/api/auth/me').set('Cookie', old).expect(401);
+    const me = await browser.get('/api/auth/me').expect(200);
+    expect(me.body.email).toBe(second.email);
+  });
+
   test('when signed out, then replaying the old cookie gives 401 (ASVS 7.4.1)', async () => {
     const user = await createUser();
     const browser = agent(t.app);

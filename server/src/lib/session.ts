@@ -61,6 +61,10 @@ type StoredSession = session.SessionData & { [LOADED]?: SessionRead };
 const READ = Symbol('sporewell.sessionReadOfRequest');
 type WithRead = { [READ]?: SessionRead };
 
+/** Set on a request once its session has been written to the store. */
+const SAVED = Symbol('sporewell.sessionSavedByRequest');
+type WithSaved = { [SAVED]?: boolean };
+
 /** The user read with this request's session, or undefined when it was not read that way. */
 export function sessionUserOf(req: Request): UserRecord | null | undefined {
   return (req as WithRead)[READ]?.user;
@@ -96,6 +100,24 @@ class SporewellStore extends PgStore {
     const read = stored[LOADED];
     if (read) (req as WithRead)[READ] = read;
     return super.createSession(req, stored);
+  }
+
+  override set(sid: string, sess: session.SessionData, callback?: (error?: unknown) => void): void {
+    const req = (sess as unknown as { req?: WithSaved }).req;
+    if (req) req[SAVED] = true;
+    super.set(sid, sess, callback);
+  }
+
+  /**
+   * Sign-in regenerates the session (ASVS 7.2.4): the old row is deleted and a new id issued.
+   * When this request's session was never stored (no row was read for its cookie and it has not
+   * been saved), there is no row to delete, and the DELETE round trip is skipped; the new id is
+   * issued all the same.
+   */
+  override regenerate(req: Request, callback: (error?: unknown) => void): void {
+    if ((req as WithRead)[READ] || (req as WithSaved)[SAVED]) return super.regenerate(req, callback);
+    (this as unknown as { generate(req: Request): void }).generate(req);
+    callback();
   }
 
   override touch(sid: string, sess: session.SessionData, callback?: (error?: unknown) => void): void {

@@ -48,7 +48,7 @@ export async function register(input: RegisterInput, publicUrl: string): Promise
 }
 
 export async function authenticate(input: LoginInput, ip: string | undefined): Promise<UserRecord> {
-  const { retryAfter: wait } = await reserveAttempt(input.email, ip);
+  const { retryAfter: wait, user } = await reserveAttempt(input.email, ip);
   if (wait !== null) {
     log.security('auth.sign_in_throttled', { email: input.email, ip });
     const minutes = Math.ceil(wait / 60);
@@ -60,7 +60,6 @@ export async function authenticate(input: LoginInput, ip: string | undefined): P
       { 'Retry-After': String(wait) },
     );
   }
-  const user = await usersRepository.findByEmailWithHash(input.email);
   const ok = user ? await verifyPassword(user.passwordHash, input.password) : (await burnTime(input.password), false);
   if (!user || !ok) {
     log.security('auth.sign_in_failed', { email: input.email, ip, known: Boolean(user) });

@@ -2,35 +2,32 @@
 // minutes is refused whichever address it comes from, until the oldest failure ages out.
 import { QueryTypes } from 'sequelize';
 import { getSequelize } from '../../db/sequelize';
+import { userFromRow, USER_COLUMNS, type UserRow, type UserWithHash } from '../users/users.repository';
 
 export const MAX_FAILURES = 10;
 export const WINDOW_MINUTES = 15;
 
+export type Reservation = { retryAfter: number; user: null } | { retryAfter: null; user: UserWithHash | null };
+
 /**
- * Takes one attempt slot for this account, or says how long to wait. The slot is written as a
- * failure before the password is checked (and removed on success), under a per-account advisory
- * lock, so concurrent attempts through several processes cannot slip past the limit together.
+ * Takes one attempt slot for this account, or says how long to wait, and reads the account in
+ * the same round trip. The slot is written as a failure before the password is checked (and
+ * removed on success) by `sign_in_reserve` (migration 0800), under a per-account advisory lock,
+ * so concurrent attempts through several processes cannot slip past the limit together.
  */
-export async function reserveAttempt(email: string, ip: string | undefined): Promise<{ retryAfter: number } | { retryAfter: null }> {
-  const sequelize = getSequelize();
-  return sequelize.transaction(async (transaction) => {
-    await sequelize.query(`SELECT pg_advisory_xact_lock(727003, hashtext(:email))`, { replacements: { email }, transaction });
-    const rows = await sequelize.query<{ n: string; oldest: Date | null }>(
-      `SELECT count(*) AS n, min(created_at) AS oldest FROM sign_in_failures
-        WHERE email = :email AND created_at > now() - make_interval(mins => :window)`,
-      { replacements: { email, window: WINDOW_MINUTES }, type: QueryTypes.SELECT, transaction },
-    );
-    const n = Number(rows[0]?.n ?? 0);
-    if (n >= MAX_FAILURES && rows[0]?.oldest) {
-      const until = new Date(rows[0].oldest).getTime() + WINDOW_MINUTES * 60_000;
-      return { retryAfter: Math.max(1, Math.ceil((until - Date.now()) / 1000)) };
-    }
-    await sequelize.query(`INSERT INTO sign_in_failures (email, ip) VALUES (:email, :ip)`, {
-      replacements: { email, ip: ip ?? null },
-      transaction,
-    });
-    return { retryAfter: null };
-  });
+export async function reserveAttempt(email: string, ip: string | undefined): Promise<Reservation> {
+  const [row] = await getSequelize().query<{ failures: string; oldest: Date | null; reserved: boolean } & Partial<UserRow>>(
+    `SELECT r.failures, r.oldest, r.reserved, u.*
+       FROM sign_in_reserve(:email, :ip, :max, :window) AS r
+       LEFT JOIN LATERAL (SELECT ${USER_COLUMNS} FROM users WHERE email = :email AND r.reserved) AS u ON true`,
+    { replacements: { email, ip: ip ?? null, max: MAX_FAILURES, window: WINDOW_MINUTES }, type: QueryTypes.SELECT },
+  );
+  if (!row) throw new Error('sign_in_reserve answered no row');
+  if (!row.reserved) {
+    const until = row.oldest ? new Date(row.oldest).getTime() + WINDOW_MINUTES * 60_000 : Date.now() + 1000;
+    return { retryAfter: Math.max(1, Math.ceil((until - Date.now()) / 1000)), user: null };
+  }
+  return { retryAfter: null, user: row.id == null ? null : userFromRow(row as UserRow) };
 }
 
 export async function clearFailures(email: string): Promise<void> {

@@ -18,7 +18,8 @@ export interface UserWithHash extends UserRecord {
   passwordHash: string;
 }
 
-function plain(model: UserModel): UserWithHash {
+/** A user with its hash, from a model or from a row read with USER_COLUMNS (and nothing else it brought along). */
+export function userFromRow(model: UserModel | UserRow): UserWithHash {
   return {
     id: model.id,
     email: model.email,
@@ -33,6 +34,11 @@ function plain(model: UserModel): UserWithHash {
   };
 }
 
+/** The columns of a user with its hash, named as UserWithHash's fields, for raw SQL reads. */
+export const USER_COLUMNS = `id, email::text AS email, display_name AS "displayName", role, email_verified AS "emailVerified", disabled,
+  about, notify_urgent AS "notifyUrgent", created_at AS "createdAt", password_hash AS "passwordHash"`;
+export type UserRow = UserWithHash;
+
 function withoutHash({ passwordHash: _hash, ...rest }: UserWithHash): UserRecord {
   return rest;
 }
@@ -43,7 +49,7 @@ export const usersRepository = {
   async create(input: { email: string; displayName: string; passwordHash: string; role?: Role; emailVerified?: boolean }): Promise<UserRecord> {
     try {
       const created = await UserModel.create(input);
-      return withoutHash(plain(created));
+      return withoutHash(userFromRow(created));
     } catch (error) {
       if (error instanceof UniqueConstraintError) throw new EmailTakenError();
       throw error;
@@ -52,19 +58,19 @@ export const usersRepository = {
 
   async findById(id: number): Promise<UserRecord | null> {
     const found = await UserModel.findByPk(id);
-    return found ? withoutHash(plain(found)) : null;
+    return found ? withoutHash(userFromRow(found)) : null;
   },
 
   async findByEmailWithHash(email: string): Promise<UserWithHash | null> {
     const found = await UserModel.findOne({ where: { email } });
-    return found ? plain(found) : null;
+    return found ? userFromRow(found) : null;
   },
 
   async update(id: number, changes: Partial<Pick<UserWithHash, 'role' | 'disabled' | 'displayName' | 'passwordHash' | 'emailVerified' | 'about' | 'notifyUrgent'>>): Promise<UserRecord | null> {
     const found = await UserModel.findByPk(id);
     if (!found) return null;
     await found.update(changes);
-    return withoutHash(plain(found));
+    return withoutHash(userFromRow(found));
   },
 
   async list(filter: { role?: Role; q?: string; page: number; pageSize: number }): Promise<{ items: UserRecord[]; total: number }> {
@@ -80,7 +86,7 @@ export const usersRepository = {
       limit: filter.pageSize,
       offset: (filter.page - 1) * filter.pageSize,
     });
-    return { items: rows.map((r) => withoutHash(plain(r))), total: count };
+    return { items: rows.map((r) => withoutHash(userFromRow(r))), total: count };
   },
 
   async countByRole(role: Role, options: { activeOnly?: boolean } = {}): Promise<number> {
