@@ -49,7 +49,8 @@ type Group = (typeof GROUPS)[number];
 const ROUNDS = { openCases: 500, pageSize: 50, connections: 100, warmupSeconds: 2, seconds: 10, breakdownSeconds: 4 };
 // BENCH_THREAD_RATE changes the message rate, to look for the rate a build sustains; the table's
 // verdicts are for the budget's load only.
-const THREAD = { rooms: 500, mentors: 50, ratePerSecond: Number(process.env.BENCH_THREAD_RATE ?? 1500), seconds: 10, drainMs: 10_000 };
+// warmupSeconds: sent at the same rate before the timed 10 s, in both runs (BENCH_THREAD_WARMUP).
+const THREAD = { rooms: 500, mentors: 50, ratePerSecond: Number(process.env.BENCH_THREAD_RATE ?? 1500), seconds: 10, warmupSeconds: Number(process.env.BENCH_THREAD_WARMUP ?? 3), drainMs: 10_000 };
 // autocannon's overallRate gives each of `connections` connections its share per second, sent at
 // the start of each second: 50 connections × 1/s is 50 sign-ins arriving together every second.
 // anchorCapacity: QUALITY.md's "argon2id at the OWASP minimum ~25 ms, ~85/s on 2 cores".
@@ -136,7 +137,7 @@ function threadNote(name: string, r: ThreadLoadResult, stored: number | null): s
   const cpu = Object.entries(r.cpuMs).map(([who, v]) => `${who} ${v === null || per === 0 ? 'n/a' : (v / per).toFixed(2)}`).join(' + ');
   return (
     `${name}: ${r.sockets} sockets connected and joined in ${r.connectSeconds.toFixed(1)} s (${r.connectFailures} refused, ${r.joinFailures} joins failed); ` +
-    `${int(r.sent)} sent in ${r.sendSeconds.toFixed(1)} s (${int(r.sent / r.sendSeconds)}/s), ${int(r.acked)} acked (failures: ${failures}), ` +
+    `${int(r.sent)} sent in ${r.sendSeconds.toFixed(1)} s (${int(r.sent / r.sendSeconds)}/s${r.warmup ? `; the first ${int(r.warmup)} a warm-up, not timed` : ''}), ${int(r.acked)} acked (failures: ${failures}), ` +
     `${stored === null ? '' : `${int(stored)} stored, `}${int(r.received)} received; delivery p50 ${ms(r.latency.p50)} p95 ${ms(r.latency.p95)} p99 ${ms(r.latency.p99)} max ${ms(r.latency.max)} ` +
     `(p95 ${ms(r.latencyByHalf[0].p95)} in the first half of the sending, ${ms(r.latencyByHalf[1].p95)} in the second); ` +
     `ack p95 ${ms(r.ackLatency.p95)}, ack to receipt p50 ${ms(r.afterAck.p50)} p95 ${ms(r.afterAck.p95)}; lost ${r.lost}, duplicated ${r.duplicated}, misdelivered ${r.misdelivered}, dropped sockets ${r.disconnects}; ` +
@@ -367,7 +368,7 @@ async function main(): Promise<number> {
         try {
           const rooms = data.rooms.slice(0, THREAD.rooms).map((r) => ({ caseId: r.caseId, cookies: [r.grower.cookie, r.mentor.cookie] as [string, string] }));
           const load = (servers: string[], cpu: Record<string, () => CpuProbe>) =>
-            runThreadLoad({ servers, rooms, ratePerSecond: THREAD.ratePerSecond, seconds: THREAD.seconds, maxMessages: THREAD.ratePerSecond * THREAD.seconds, drainMs: THREAD.drainMs, cpu });
+            runThreadLoad({ servers, rooms, ratePerSecond: THREAD.ratePerSecond, seconds: THREAD.seconds, warmupSeconds: THREAD.warmupSeconds, maxMessages: THREAD.ratePerSecond * THREAD.seconds, drainMs: THREAD.drainMs, cpu });
           say(`live thread: ${rooms.length * 2} sockets in ${rooms.length} rooms, ${THREAD.ratePerSecond} messages/s for ${THREAD.seconds} s, bare relay first…`);
           const relay = await startChild('bare-relay', 'scripts/bench/bare-relay.ts', { NODE_ENV: 'production' });
           const bare = await load([relay.info.url], { relay: () => processCpu(relay.child.proc.pid!), clients: selfCpu });

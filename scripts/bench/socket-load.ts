@@ -31,6 +31,12 @@ export interface ThreadLoadOptions {
   ratePerSecond: number;
   seconds: number;
   maxMessages: number;
+  /**
+   * Seconds of sending at the same rate before the timed part (default 0): those messages are
+   * counted for loss and duplicates like the others but left out of the latencies, so the
+   * figures are of a warmed-up server (compiled code, pools and caches filled), for both runs.
+   */
+  warmupSeconds?: number;
   drainMs: number;
   /** how many handshakes / joins are in flight at once while setting up */
   wave?: number;
@@ -46,6 +52,8 @@ export interface ThreadLoadResult {
   connectFailures: number;
   joinFailures: number;
   sent: number;
+  /** how many of `sent` were the untimed warm-up */
+  warmup: number;
   sendSeconds: number;
   acked: number;
   /** error code (or "timeout") → count, for acks that did not say stored */
@@ -108,7 +116,8 @@ export async function runThreadLoad(options: ThreadLoadOptions): Promise<ThreadL
   let disconnects = 0;
   let running = true;
 
-  const total = options.maxMessages;
+  const warmup = Math.floor((options.warmupSeconds ?? 0) * options.ratePerSecond);
+  const total = warmup + options.maxMessages;
   const sentAt = new Float64Array(total);
   const receivedAt = new Float64Array(total);
   const receipts = new Uint16Array(total);
@@ -190,7 +199,7 @@ export async function runThreadLoad(options: ThreadLoadOptions): Promise<ThreadL
           ackedAt[k] = performance.now();
           acked += 1;
           settled += 1;
-          ackMs.push(performance.now() - sentAt[k]);
+          if (k >= warmup) ackMs.push(performance.now() - sentAt[k]);
         },
       );
     };
@@ -199,7 +208,7 @@ export async function runThreadLoad(options: ThreadLoadOptions): Promise<ThreadL
         const elapsed = (performance.now() - sendStarted) / 1000;
         const due = Math.min(total, Math.floor(elapsed * options.ratePerSecond));
         while (sent < due) sendOne(sent++);
-        if (sent >= total || elapsed >= options.seconds) {
+        if (sent >= total || elapsed >= options.seconds + (options.warmupSeconds ?? 0)) {
           clearInterval(timer);
           resolve();
         }
@@ -233,16 +242,18 @@ export async function runThreadLoad(options: ThreadLoadOptions): Promise<ThreadL
     const latencies: number[] = [];
     const afterAck: number[] = [];
     const halves: [number[], number[]] = [[], []];
-    const middle = sendStarted + (sendSeconds * 1000) / 2;
+    const middle = warmup + (sent - warmup) / 2;
     let received = 0;
     let lost = 0;
     let duplicated = 0;
     for (let k = 0; k < sent; k++) {
       if (receipts[k] > 0) {
         received += 1;
-        latencies.push(receivedAt[k] - sentAt[k]);
-        halves[sentAt[k] < middle ? 0 : 1].push(receivedAt[k] - sentAt[k]);
-        if (ackOk[k]) afterAck.push(receivedAt[k] - ackedAt[k]);
+        if (k >= warmup) {
+          latencies.push(receivedAt[k] - sentAt[k]);
+          halves[k < middle ? 0 : 1].push(receivedAt[k] - sentAt[k]);
+          if (ackOk[k]) afterAck.push(receivedAt[k] - ackedAt[k]);
+        }
       } else if (ackOk[k]) lost += 1;
       if (receipts[k] > 1) duplicated += receipts[k] - 1;
     }
@@ -252,6 +263,7 @@ export async function runThreadLoad(options: ThreadLoadOptions): Promise<ThreadL
       connectFailures,
       joinFailures,
       sent,
+      warmup,
       sendSeconds,
       acked,
       ackFailures,
