@@ -3,8 +3,8 @@
 // other socket of the room receives. The same load runs against Sporewell and the bare relay.
 //
 // Message k goes to room k mod R, from its first socket on even passes and its second on odd
-// ones, so every socket sends at rate / (2R). Sending stops at `maxMessages` or `seconds`,
-// whichever comes first; then the run waits for every ack (15 s timeout each) and at most
+// ones, so every socket sends at rate / (2R). After the untimed `warmupSeconds`, sending stops
+// at `maxMessages` or `seconds` more, whichever comes first; then the run waits for every ack (15 s timeout each) and at most
 // `drainMs` more for what is still on its way.
 // Every message carries a unique clientId, which is how receipts are counted: once is right,
 // twice is a duplicate, never (for a message whose ack said stored) is a loss.
@@ -116,7 +116,8 @@ export async function runThreadLoad(options: ThreadLoadOptions): Promise<ThreadL
   let disconnects = 0;
   let running = true;
 
-  const warmup = Math.floor((options.warmupSeconds ?? 0) * options.ratePerSecond);
+  const warmupSeconds = options.warmupSeconds ?? 0;
+  const warmup = Math.floor(warmupSeconds * options.ratePerSecond);
   const total = warmup + options.maxMessages;
   const sentAt = new Float64Array(total);
   const receivedAt = new Float64Array(total);
@@ -208,7 +209,7 @@ export async function runThreadLoad(options: ThreadLoadOptions): Promise<ThreadL
         const elapsed = (performance.now() - sendStarted) / 1000;
         const due = Math.min(total, Math.floor(elapsed * options.ratePerSecond));
         while (sent < due) sendOne(sent++);
-        if (sent >= total || elapsed >= options.seconds + (options.warmupSeconds ?? 0)) {
+        if (sent >= total || elapsed >= options.seconds + warmupSeconds) {
           clearInterval(timer);
           resolve();
         }

@@ -2,7 +2,7 @@
 // minutes is refused whichever address it comes from, until the oldest failure ages out.
 import { QueryTypes } from 'sequelize';
 import { getSequelize } from '../../db/sequelize';
-import { userFromRow, USER_COLUMNS, type UserRow, type UserWithHash } from '../users/users.repository';
+import { userFromRow, USER_WITH_HASH_COLUMNS, type UserWithHash } from '../users/users.repository';
 
 export const MAX_FAILURES = 10;
 export const WINDOW_MINUTES = 15;
@@ -16,10 +16,10 @@ export type Reservation = { retryAfter: number; user: null } | { retryAfter: nul
  * so concurrent attempts through several processes cannot slip past the limit together.
  */
 export async function reserveAttempt(email: string, ip: string | undefined): Promise<Reservation> {
-  const [row] = await getSequelize().query<{ failures: string; oldest: Date | null; reserved: boolean } & Partial<UserRow>>(
-    `SELECT r.failures, r.oldest, r.reserved, u.*
+  const [row] = await getSequelize().query<{ oldest: Date | null; reserved: boolean } & Partial<UserWithHash>>(
+    `SELECT r.oldest, r.reserved, u.*
        FROM sign_in_reserve(:email, :ip, :max, :window) AS r
-       LEFT JOIN LATERAL (SELECT ${USER_COLUMNS} FROM users WHERE email = :email AND r.reserved) AS u ON true`,
+       LEFT JOIN LATERAL (SELECT ${USER_WITH_HASH_COLUMNS} FROM users WHERE email = :email AND r.reserved) AS u ON true`,
     { replacements: { email, ip: ip ?? null, max: MAX_FAILURES, window: WINDOW_MINUTES }, type: QueryTypes.SELECT },
   );
   if (!row) throw new Error('sign_in_reserve answered no row');
@@ -27,7 +27,7 @@ export async function reserveAttempt(email: string, ip: string | undefined): Pro
     const until = row.oldest ? new Date(row.oldest).getTime() + WINDOW_MINUTES * 60_000 : Date.now() + 1000;
     return { retryAfter: Math.max(1, Math.ceil((until - Date.now()) / 1000)), user: null };
   }
-  return { retryAfter: null, user: row.id == null ? null : userFromRow(row as UserRow) };
+  return { retryAfter: null, user: row.id == null ? null : userFromRow(row as UserWithHash) };
 }
 
 export async function clearFailures(email: string): Promise<void> {

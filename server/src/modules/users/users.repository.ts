@@ -18,8 +18,8 @@ export interface UserWithHash extends UserRecord {
   passwordHash: string;
 }
 
-/** A user with its hash, from a model or from a row read with USER_COLUMNS (and nothing else it brought along). */
-export function userFromRow(model: UserModel | UserRow): UserWithHash {
+/** A user with its hash, from a model or from a row read with USER_WITH_HASH_COLUMNS (and nothing else it brought along). */
+export function userFromRow(model: UserModel | UserWithHash): UserWithHash {
   return {
     id: model.id,
     email: model.email,
@@ -35,9 +35,8 @@ export function userFromRow(model: UserModel | UserRow): UserWithHash {
 }
 
 /** The columns of a user with its hash, named as UserWithHash's fields, for raw SQL reads. */
-export const USER_COLUMNS = `id, email::text AS email, display_name AS "displayName", role, email_verified AS "emailVerified", disabled,
+export const USER_WITH_HASH_COLUMNS = `id, email::text AS email, display_name AS "displayName", role, email_verified AS "emailVerified", disabled,
   about, notify_urgent AS "notifyUrgent", created_at AS "createdAt", password_hash AS "passwordHash"`;
-export type UserRow = UserWithHash;
 
 function withoutHash({ passwordHash: _hash, ...rest }: UserWithHash): UserRecord {
   return rest;
