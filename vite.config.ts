@@ -1,5 +1,6 @@
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
+import type { Plugin } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 
@@ -16,11 +17,34 @@ const CASE_VIEW = new RegExp(
     'browser-image-compression\\.js\\?url$',
   ].join('|'),
 );
+/**
+ * Marks every JS chunk with V8's explicit compile hint, so Chromium compiles its functions while
+ * the file streams in, on a background thread, rather than one by one on the main thread the
+ * first time each runs (v8.dev/blog/explicit-compile-hints). The chunks are split by page, so
+ * nearly all of a chunk that loads runs at once.
+ */
+function compileHints(): Plugin {
+  return {
+    name: 'sporewell:compile-hints',
+    apply: 'build',
+    enforce: 'post',
+    generateBundle: {
+      // After Vite's own, which puts its preload map at the top of the entry: the hint must be first.
+      order: 'post',
+      handler(_options, bundle) {
+        for (const file of Object.values(bundle)) {
+          if (file.type === 'chunk') file.code = `//# allFunctionsCalledOnLoad\n${file.code}`;
+        }
+      },
+    },
+  };
+}
+
 const apiTarget = `http://127.0.0.1:${process.env.API_PORT ?? '3000'}`;
 
 export default defineConfig({
   root: 'client',
-  plugins: [react(), tailwindcss()],
+  plugins: [react(), tailwindcss(), compileHints()],
   resolve: { alias: { '@shared': shared } },
   build: {
     outDir: '../dist/client',

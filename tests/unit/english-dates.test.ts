@@ -1,6 +1,6 @@
 // The hand-made English dates against Intl.DateTimeFormat('en-GB') itself, the forms they stand in for.
 import { describe, expect, test } from 'vitest';
-import { dayMonthTime, dayMonthYear } from '../../client/src/lib/english-dates';
+import { clockTime, dayMonth, dayMonthTime, dayMonthYear, fullDayClock, shortDayClock } from '../../client/src/lib/english-dates';
 import { formatMadeOn } from '../../client/src/features/batches/lib/batch-format';
 
 const DAY = 24 * 60 * 60 * 1000;
@@ -24,6 +24,29 @@ describe('English dates without Intl', () => {
       for (const offset of [0, 5 * 60_000, 11 * 3_600_000, 23 * 3_600_000 + 59 * 60_000]) {
         const at = new Date(t + offset);
         expect(dayMonthTime(at)).toBe(intl.format(at));
+      }
+    }
+  });
+
+  test('when a moment is written as its day and month, then it reads as Intl en-GB writes it in the same time zone', () => {
+    const intl = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long' });
+    for (let t = Date.UTC(2028, 0, 1); t < Date.UTC(2029, 0, 1); t += DAY + 3_607_000) {
+      const at = new Date(t);
+      expect(dayMonth(at)).toBe(intl.format(at));
+    }
+  });
+
+  test('when a message time is written as a clock, a short day with its clock, or in full, then each reads as Intl en-GB writes it', () => {
+    const clock = new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit' });
+    const short = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
+    const full = new Intl.DateTimeFormat('en-GB', { dateStyle: 'full', timeStyle: 'short' });
+    // Every weekday and month of a year, at times through midnight and the last minute of a day.
+    for (let t = Date.UTC(2026, 0, 1); t < Date.UTC(2027, 0, 1); t += 3 * DAY + 3_607_000) {
+      for (const offset of [0, 5 * 60_000, 13 * 3_600_000, 23 * 3_600_000 + 59 * 60_000]) {
+        const at = new Date(t + offset);
+        expect(clockTime(at)).toBe(clock.format(at));
+        expect(shortDayClock(at)).toBe(short.format(at));
+        expect(fullDayClock(at)).toBe(full.format(at));
       }
     }
   });

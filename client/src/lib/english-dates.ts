@@ -6,6 +6,7 @@
 const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
 // en-GB's abbreviations (four letters for September).
 const SHORT_MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sept', 'Oct', 'Nov', 'Dec'];
+const WEEKDAYS = ['Sunday', 'Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday'];
 const twoDigits = (n: number) => String(n).padStart(2, '0');
 
 /** "3 March 2026", or "3 Mar 2026" short, for a calendar day (month 1-12). */
@@ -13,7 +14,27 @@ export function dayMonthYear(year: number, month: number, day: number, style: 'l
   return `${day} ${(style === 'long' ? MONTHS : SHORT_MONTHS)[month - 1]} ${year}`;
 }
 
+/** "3 March", in the reader's time zone. */
+export function dayMonth(at: Date): string {
+  return `${at.getDate()} ${MONTHS[at.getMonth()]}`;
+}
+
 /** "3 March at 14:05", in the reader's time zone. */
 export function dayMonthTime(at: Date): string {
-  return `${at.getDate()} ${MONTHS[at.getMonth()]} at ${twoDigits(at.getHours())}:${twoDigits(at.getMinutes())}`;
+  return `${at.getDate()} ${MONTHS[at.getMonth()]} at ${clockTime(at)}`;
+}
+
+/** "14:05", in the reader's time zone. */
+export function clockTime(at: Date): string {
+  return `${twoDigits(at.getHours())}:${twoDigits(at.getMinutes())}`;
+}
+
+/** "3 Mar, 14:05", in the reader's time zone. */
+export function shortDayClock(at: Date): string {
+  return `${at.getDate()} ${SHORT_MONTHS[at.getMonth()]}, ${clockTime(at)}`;
+}
+
+/** "Tuesday, 3 March 2026 at 14:05", in the reader's time zone (Intl's dateStyle full, timeStyle short). */
+export function fullDayClock(at: Date): string {
+  return `${WEEKDAYS[at.getDay()]}, ${at.getDate()} ${MONTHS[at.getMonth()]} ${at.getFullYear()} at ${clockTime(at)}`;
 }

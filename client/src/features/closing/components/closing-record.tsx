@@ -2,8 +2,9 @@ import { Link } from 'react-router';
 import type { ClosingState } from '@shared/closing-schemas';
 import { OUTCOME_LABELS } from '@shared/outcomes';
 import { CAUSES, REMEDIES, labelOf } from '@shared/vocabulary';
+import { dayMonth } from '../../../lib/english-dates';
 
-const dayText = (iso: string) => new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long' }).format(new Date(iso));
+const dayText = (iso: string) => dayMonth(new Date(iso));
 
 /** What closing recorded, the check-ins, and how the case ended. */
 export function ClosingRecord({ state }: { state: ClosingState }) {
