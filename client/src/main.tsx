@@ -1,9 +1,6 @@
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
-import '@fontsource/nunito/400.css';
-import '@fontsource/nunito/600.css';
-import '@fontsource/nunito/700.css';
-import '@fontsource/nunito/800.css';
+import '@fontsource-variable/nunito/wght.css';
 import './styles/app.css';
 import { AppProvider } from './app/provider';
 import { AppRouter } from './app/router';
