@@ -1,6 +1,6 @@
 // The hand-made English dates against Intl.DateTimeFormat('en-GB') itself, the forms they stand in for.
 import { describe, expect, test } from 'vitest';
-import { clockTime, dayMonth, dayMonthTime, dayMonthYear, fullDayClock, shortDayClock } from '../../client/src/lib/english-dates';
+import { clockTime, dayMonth, dayMonthTime, dayMonthYear, dayMonthYearOf, dayShortMonth, fullDayClock, monthYear, shortDayClock } from '../../client/src/lib/english-dates';
 import { formatMadeOn } from '../../client/src/features/batches/lib/batch-format';
 
 const DAY = 24 * 60 * 60 * 1000;
@@ -33,6 +33,19 @@ describe('English dates without Intl', () => {
     for (let t = Date.UTC(2028, 0, 1); t < Date.UTC(2029, 0, 1); t += DAY + 3_607_000) {
       const at = new Date(t);
       expect(dayMonth(at)).toBe(intl.format(at));
+    }
+  });
+
+  test('when a moment is written as its short day, its month and year, or its whole day, then each reads as Intl en-GB writes it', () => {
+    const short = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short' });
+    const month = new Intl.DateTimeFormat('en-GB', { month: 'long', year: 'numeric' });
+    const whole = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', year: 'numeric' });
+    // Every day of a leap year, late in the evening (where a time zone could move the day).
+    for (let t = Date.UTC(2028, 0, 1, 22, 30); t < Date.UTC(2029, 0, 1); t += DAY) {
+      const at = new Date(t);
+      expect(dayShortMonth(at)).toBe(short.format(at));
+      expect(monthYear(at)).toBe(month.format(at));
+      expect(dayMonthYearOf(at)).toBe(whole.format(at));
     }
   });
 

@@ -14,6 +14,21 @@ export function dayMonthYear(year: number, month: number, day: number, style: 'l
   return `${day} ${(style === 'long' ? MONTHS : SHORT_MONTHS)[month - 1]} ${year}`;
 }
 
+/** "3 Mar", in the reader's time zone. */
+export function dayShortMonth(at: Date): string {
+  return `${at.getDate()} ${SHORT_MONTHS[at.getMonth()]}`;
+}
+
+/** "March 2026", in the reader's time zone. */
+export function monthYear(at: Date): string {
+  return `${MONTHS[at.getMonth()]} ${at.getFullYear()}`;
+}
+
+/** "3 March 2026", in the reader's time zone. */
+export function dayMonthYearOf(at: Date): string {
+  return dayMonthYear(at.getFullYear(), at.getMonth() + 1, at.getDate());
+}
+
 /** "3 March", in the reader's time zone. */
 export function dayMonth(at: Date): string {
   return `${at.getDate()} ${MONTHS[at.getMonth()]}`;

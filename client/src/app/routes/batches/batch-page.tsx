@@ -7,6 +7,7 @@ import { BatchCheckPanel } from '../../../features/batch-check/components/batch-
 import { liveBatchCheck } from '../../../features/batch-check/hooks/use-live-batch-check';
 import { batchRouteLoader, useRouteBatch } from '../../../features/batches/api/get-batch';
 import { ageText, formatMadeOn, stageLabel } from '../../../features/batches/lib/batch-format';
+import { dayShortMonth } from '../../../lib/english-dates';
 
 export const clientLoader = batchRouteLoader;
 
@@ -80,7 +81,7 @@ export default function BatchPageRoute() {
                       {c.title}
                     </Link>{' '}
                     <span className="text-loam-soft">
-                      · {STATUS_LABELS[c.status]} · opened {new Date(c.openedAt).toLocaleDateString('en-GB', { day: 'numeric', month: 'short' })}
+                      · {STATUS_LABELS[c.status]} · opened {dayShortMonth(new Date(c.openedAt))}
                     </span>
                   </li>
                 ))}

@@ -15,6 +15,7 @@ import { EntryMarkdown } from '../../../features/library/components/entry-markdo
 import { EntryTags } from '../../../features/library/components/entry-tags';
 import { KindBadge, OutcomeBadge } from '../../../features/library/components/outcome-badge';
 import { RemedyRecord } from '../../../features/library/components/remedy-record';
+import { dayMonthYearOf } from '../../../lib/english-dates';
 
 function slugOf(raw: string | undefined): string {
   if (!raw || !/^[a-z0-9][a-z0-9-]{0,119}$/.test(raw)) throw data(null, { status: 404 });
@@ -26,7 +27,7 @@ export const clientLoader = (queryClient: QueryClient) => async ({ params }: Loa
   return null;
 };
 
-const dateText = (iso: string) => new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', year: 'numeric' }).format(new Date(iso));
+const dateText = (iso: string) => dayMonthYearOf(new Date(iso));
 
 export default function FieldNoteRoute() {
   const slug = slugOf(useParams().slug);

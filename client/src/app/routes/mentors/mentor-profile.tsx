@@ -13,6 +13,7 @@ import { EntryTags } from '../../../features/library/components/entry-tags';
 import { OutcomeBadge } from '../../../features/library/components/outcome-badge';
 import { TrackRecordBar } from '../../../features/library/components/track-record-bar';
 import { mentorQueryOptions } from '../../../features/mentors/api/get-mentor';
+import { monthYear } from '../../../lib/english-dates';
 
 export const clientLoader = (queryClient: QueryClient) => async ({ params }: LoaderFunctionArgs) => {
   await queryClient.ensureQueryData(mentorQueryOptions(routeIdOf(params.id)));
@@ -25,7 +26,7 @@ function hoursText(hours: number): string {
   return `${Math.round(hours / 24)} days`;
 }
 
-const monthText = (iso: string) => new Intl.DateTimeFormat('en-GB', { month: 'long', year: 'numeric' }).format(new Date(iso));
+const monthText = (iso: string) => monthYear(new Date(iso));
 
 function Stat({ label, value, children }: { label: string; value: string; children?: ReactNode }) {
   return (

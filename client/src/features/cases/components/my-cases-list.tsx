@@ -1,9 +1,9 @@
 import { Link } from 'react-router';
 import { STATUS_LABELS } from '@shared/case-status';
 import { Spinner } from '../../../components/ui/spinner';
+import { dayShortMonth } from '../../../lib/english-dates';
 import { useMyCases } from '../api/get-my-cases';
 
-const DATE = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short' });
 
 /** The grower's own cases, newest first, with where each stands. */
 export function MyCasesList() {
@@ -21,7 +21,7 @@ export function MyCasesList() {
             {c.title}
           </Link>
           <span className="text-loam-soft">
-            {STATUS_LABELS[c.status]} · opened {DATE.format(new Date(c.openedAt))}
+            {STATUS_LABELS[c.status]} · opened {dayShortMonth(new Date(c.openedAt))}
           </span>
         </li>
       ))}
