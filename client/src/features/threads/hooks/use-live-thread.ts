@@ -4,6 +4,7 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import type { PresenceEntry, ThreadMessage } from '@shared/socket-events';
 import { useLiveSocket } from '../../../lib/socket';
+import type { UnreadCounts } from '../api/get-unread';
 import { addToThread } from '../api/send-message';
 import { threadKeys } from '../api/thread-keys';
 import { lastSeqOf, markHidden } from '../lib/merge-messages';
@@ -68,8 +69,10 @@ export function useLiveThread(caseId: number, options: { onCaseUpdated?: () => v
         setPresent(answer.presence ?? []);
         setJoin({ kind: 'joined' });
         if (answer.hasMore && afterSeq !== undefined) await catchUp(lastSeqOf(answer.messages));
-        // Joining counts as reading: the counts in the header change.
-        void queryClient.invalidateQueries({ queryKey: threadKeys.unread() });
+        // Joining counts as reading: the counts in the header change, when they had any for this
+        // case (or are not known yet). A case with nothing unread costs no second ask.
+        const counts = queryClient.getQueryData<UnreadCounts>(threadKeys.unread());
+        if (!counts || (counts.byCase[caseId] ?? 0) > 0) void queryClient.invalidateQueries({ queryKey: threadKeys.unread() });
       } catch {
         // No answer: the next reconnect joins again; meanwhile the page load's copy stands.
         if (active) setJoin({ kind: 'joining' });
