@@ -26,6 +26,8 @@ const METRIC_NAMES: Record<(typeof METRICS)[number], string> = {
   'speed-index': 'SI',
 };
 
+// Lighthouse's own list (core/config/constants.js) and the cookies.
+const VISITOR_CLEARS = ['file_systems', 'shader_cache', 'service_workers', 'cache_storage', 'cookies'] as const;
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
 const loadAverage = () => os.loadavg().map((l) => l.toFixed(2)).join(' ');
 
@@ -72,6 +74,11 @@ async function main(): Promise<void> {
             logLevel: 'error',
             onlyCategories: ['performance', 'accessibility', 'best-practices'],
             extraHeaders: screen.signedIn ? { Cookie: cookie } : undefined,
+            // A visitor's screen starts without cookies. Every signed-in answer sets the session
+            // cookie again (it rolls), so after the signed-in screens Chromium's jar holds it, and
+            // Lighthouse keeps cookies between runs unless told: the Field Library was measured
+            // signed in (the unread counts and the live connection with it).
+            ...(screen.signedIn ? {} : { clearStorageTypes: [...VISITOR_CLEARS] }),
             // Loopback has no real network: measure with Lighthouse's default simulated mobile throttling.
           });
         let result = await measure();
