@@ -27,7 +27,6 @@ function compileHints(): Plugin {
   return {
     name: 'sporewell:compile-hints',
     apply: 'build',
-    enforce: 'post',
     generateBundle: {
       // After Vite's own, which puts its preload map at the top of the entry: the hint must be first.
       order: 'post',

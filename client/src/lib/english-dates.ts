@@ -36,7 +36,7 @@ export function dayMonth(at: Date): string {
 
 /** "3 March at 14:05", in the reader's time zone. */
 export function dayMonthTime(at: Date): string {
-  return `${at.getDate()} ${MONTHS[at.getMonth()]} at ${clockTime(at)}`;
+  return `${dayMonth(at)} at ${clockTime(at)}`;
 }
 
 /** "14:05", in the reader's time zone. */
@@ -46,10 +46,10 @@ export function clockTime(at: Date): string {
 
 /** "3 Mar, 14:05", in the reader's time zone. */
 export function shortDayClock(at: Date): string {
-  return `${at.getDate()} ${SHORT_MONTHS[at.getMonth()]}, ${clockTime(at)}`;
+  return `${dayShortMonth(at)}, ${clockTime(at)}`;
 }
 
 /** "Tuesday, 3 March 2026 at 14:05", in the reader's time zone (Intl's dateStyle full, timeStyle short). */
 export function fullDayClock(at: Date): string {
-  return `${WEEKDAYS[at.getDay()]}, ${at.getDate()} ${MONTHS[at.getMonth()]} ${at.getFullYear()} at ${clockTime(at)}`;
+  return `${WEEKDAYS[at.getDay()]}, ${dayMonthYearOf(at)} at ${clockTime(at)}`;
 }

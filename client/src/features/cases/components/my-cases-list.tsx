@@ -4,7 +4,6 @@ import { Spinner } from '../../../components/ui/spinner';
 import { dayShortMonth } from '../../../lib/english-dates';
 import { useMyCases } from '../api/get-my-cases';
 
-
 /** The grower's own cases, newest first, with where each stands. */
 export function MyCasesList() {
   const cases = useMyCases();
