@@ -1,3 +1,5 @@
+import { createRequire } from 'node:module';
+import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 import type { Plugin } from 'vite';
@@ -41,10 +43,20 @@ function compileHints(): Plugin {
 
 const apiTarget = `http://127.0.0.1:${process.env.API_PORT ?? '3000'}`;
 
-export default defineConfig({
+// React Router 7's package.json sends every import condition to its development build (its dev
+// warnings and checks on); the production build ships beside it in the same package
+// (dist/production, the same modules with those turned off). A client build takes that one; the
+// dev server and the tests keep the warnings.
+const routerBuilds = path.join(path.dirname(createRequire(import.meta.url).resolve('react-router')), '..');
+const productionRouter = [
+  { find: /^react-router$/, replacement: path.join(routerBuilds, 'production/index.mjs') },
+  { find: /^react-router\/dom$/, replacement: path.join(routerBuilds, 'production/dom-export.mjs') },
+];
+
+export default defineConfig(({ command }) => ({
   root: 'client',
   plugins: [react(), tailwindcss(), compileHints()],
-  resolve: { alias: { '@shared': shared } },
+  resolve: { alias: [{ find: '@shared', replacement: shared }, ...(command === 'build' ? productionRouter : [])] },
   build: {
     outDir: '../dist/client',
     emptyOutDir: true,
@@ -132,4 +144,4 @@ export default defineConfig({
       },
     ],
   },
-});
+}));
