@@ -14,6 +14,21 @@ export function dayMonthYear(year: number, month: number, day: number, style: 'l
   return `${day} ${(style === 'long' ? MONTHS : SHORT_MONTHS)[month - 1]} ${year}`;
 }
 
+/** "3 Mar" for a calendar day (month 1-12). */
+export function dayShortMonthOfDay(month: number, day: number): string {
+  return `${day} ${SHORT_MONTHS[month - 1]}`;
+}
+
+/** "3 Mar 2026", in the reader's time zone. */
+export function dayShortMonthYear(at: Date): string {
+  return dayMonthYear(at.getFullYear(), at.getMonth() + 1, at.getDate(), 'short');
+}
+
+/** "3 Mar 2026, 14:05", in the reader's time zone. */
+export function dayShortMonthYearClock(at: Date): string {
+  return `${dayShortMonthYear(at)}, ${clockTime(at)}`;
+}
+
 /** "3 Mar", in the reader's time zone. */
 export function dayShortMonth(at: Date): string {
   return `${at.getDate()} ${SHORT_MONTHS[at.getMonth()]}`;

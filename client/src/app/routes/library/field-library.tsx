@@ -10,11 +10,7 @@ import { LibraryResultCard } from '../../../features/library/components/library-
 import { LibrarySearchForm } from '../../../features/library/components/library-search-form';
 import { RemedyRecordsPanel } from '../../../features/library/components/remedy-records-panel';
 import { paramsFromSearch, searchFromParams } from '../../../features/library/lib/library-params';
-
-// Thousands grouped by hand: a page's first Intl.NumberFormat makes the browser load its number
-// data (16–35 ms in Chromium on this project's 2-core machine, more on a slow phone), all on the
-// path to the first paint, for one count.
-const grouped = (n: number) => String(n).replace(/\B(?=(\d{3})+(?!\d))/g, ',');
+import { grouped } from '../../../lib/english-numbers';
 
 function resultsLine(total: number, search: LibrarySearch): string {
   const what = total === 1 ? '1 result' : `${grouped(total)} results`;

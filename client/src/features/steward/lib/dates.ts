@@ -1,15 +1,19 @@
-// Dates as a steward reads them: "3 Mar 2025, 14:05"; weeks by their Monday, "3 Mar".
-const dateTime = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' });
-const dateOnly = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
-const shortDay = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' });
-const longDay = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+// Dates as a steward reads them: "3 Mar 2025, 14:05"; weeks by their Monday, "3 Mar". Written by
+// hand in Intl en-GB's forms (client/src/lib/english-dates.ts says why).
+import { dayMonthYear, dayShortMonthOfDay, dayShortMonthYear, dayShortMonthYearClock } from '../../../lib/english-dates';
 
-export const formatDateTime = (iso: string) => dateTime.format(new Date(iso));
-export const formatDate = (iso: string) => dateOnly.format(new Date(iso));
+/** "2025-03-03" as its year, month (1-12) and day. */
+const calendarDay = (day: string) => day.slice(0, 10).split('-').map(Number) as [number, number, number];
+
+export const formatDateTime = (iso: string) => dayShortMonthYearClock(new Date(iso));
+export const formatDate = (iso: string) => dayShortMonthYear(new Date(iso));
 /** A week key ("2025-03-03", a Monday in UTC) as a short axis label. */
-export const weekLabel = (week: string) => shortDay.format(new Date(`${week}T00:00:00Z`));
+export const weekLabel = (week: string) => {
+  const [, month, day] = calendarDay(week);
+  return dayShortMonthOfDay(month, day);
+};
 /** A calendar date ("2025-03-03") in words, for summaries. */
-export const dayInWords = (day: string) => longDay.format(new Date(`${day}T00:00:00Z`));
+export const dayInWords = (day: string) => dayMonthYear(...calendarDay(day));
 
 /** "YYYY-MM-DD" for the UTC day `days` before today. */
 export function daysAgo(days: number, now = new Date()): string {

@@ -3,6 +3,7 @@ import { MESSAGE_MAX } from '@shared/thread-limits';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { cx } from '../../../components/ui/cx';
 import { isApiError } from '../../../lib/api-client';
+import { grouped } from '../../../lib/english-numbers';
 import { usePhotoDrafts, type PhotoDraft } from '../../cases/hooks/use-photo-drafts';
 import { useSendMessage } from '../api/send-message';
 import { uploadThreadPhoto } from '../api/upload-thread-photos';
@@ -56,7 +57,7 @@ export function Composer({ caseId, canAside, onlyAsides = false, audience }: Com
       return;
     }
     if (over) {
-      setError(`Keep a message under ${MESSAGE_MAX.toLocaleString()} characters, or send it in two parts.`);
+      setError(`Keep a message under ${grouped(MESSAGE_MAX)} characters, or send it in two parts.`);
       return;
     }
     setError(null);
@@ -138,8 +139,8 @@ export function Composer({ caseId, canAside, onlyAsides = false, audience }: Com
         <p id={countId} aria-live="polite" className={cx('text-sm font-semibold', over ? 'text-ember' : 'text-loam-soft')}>
           {length >= COUNT_FROM &&
             (over
-              ? `${(length - MESSAGE_MAX).toLocaleString()} characters over the ${MESSAGE_MAX.toLocaleString()} limit`
-              : `${(MESSAGE_MAX - length).toLocaleString()} characters left`)}
+              ? `${grouped(length - MESSAGE_MAX)} characters over the ${grouped(MESSAGE_MAX)} limit`
+              : `${grouped(MESSAGE_MAX - length)} characters left`)}
         </p>
       </div>
       {error && (
