@@ -4,6 +4,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import compression from 'compression';
+import expressStaticGzip from 'express-static-gzip';
 import express, { type Express, type NextFunction, type Request, type RequestHandler, type Response } from 'express';
 import type { AppContext } from './context';
 import { renderShell, shellTemplate, type ShellData } from './lib/client-shell';
@@ -35,7 +36,8 @@ export function buildApp(ctx: AppContext): Express {
   app.set('query parser', 'extended');
 
   app.use(securityHeaders({ hsts: config.secureCookies }));
-  // Growers are often on weak rural connections: compress text responses (JS, CSS, JSON).
+  // Growers are often on weak rural connections: compress text responses (JSON, the HTML shell;
+  // the built scripts and stylesheets go as the build's own brotli or gzip copies, serveClient).
   app.use(compression());
 
   const api = express.Router();
@@ -94,10 +96,33 @@ function absoluteSessionTimeout(hours: number) {
 
 function serveClient(app: Express, session: RequestHandler[]): void {
   const template = shellTemplate(path.join(CLIENT_DIST, 'index.html'));
-  app.use(
-    '/assets',
-    express.static(path.join(CLIENT_DIST, 'assets'), { immutable: true, maxAge: '1y', index: false, fallthrough: true }),
-  );
+  // The build's brotli or gzip copy of a script or stylesheet (vite.config.ts, precompress), as
+  // the browser accepts. express-static-gzip lists the copies once, so it is made again when a
+  // build has replaced the client (index.html's time changes; the build touches it after the
+  // copies are written). A file without a copy goes out through compression() like any answer.
+  const assets = path.join(CLIENT_DIST, 'assets');
+  const indexFile = path.join(CLIENT_DIST, 'index.html');
+  let precompressed: { builtAt: number; serve: RequestHandler } | null = null;
+  app.use('/assets', (req, res, next) => {
+    let builtAt = 0;
+    try {
+      builtAt = fs.statSync(indexFile).mtimeMs;
+    } catch {
+      // not built yet: nothing to list
+    }
+    if (!precompressed || precompressed.builtAt !== builtAt) {
+      precompressed = {
+        builtAt,
+        serve: expressStaticGzip(assets, {
+          enableBrotli: true,
+          orderPreference: ['br', 'gzip'],
+          index: false,
+          serveStatic: { immutable: true, maxAge: '1y', index: false, fallthrough: true },
+        }),
+      };
+    }
+    precompressed.serve(req, res, next);
+  });
   app.use(express.static(CLIENT_DIST, { index: false, maxAge: '1h' }));
   // The SPA's own routes (e.g. /cases/42) get the client on a deep link.
   app.get('/{*splat}', (req, res, next) => {

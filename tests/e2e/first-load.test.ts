@@ -1,6 +1,10 @@
+import fs from 'node:fs';
+import http from 'node:http';
+import path from 'node:path';
+import { brotliDecompressSync, gunzipSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { launch, newContext, signIn } from './browser';
+import { baseUrl, launch, newContext, signIn } from './browser';
 
 let browser: Browser;
 // Sign-in (argon2) and the first pages of a fresh server are slow on a loaded machine.
@@ -64,5 +68,49 @@ describe('the first page a browser opens', () => {
     await page.goto('/cases/new');
     await expect.poll(() => page.url(), SOON).toContain('/sign-in?next=%2Fcases%2Fnew');
     await context.close();
+  });
+
+  test('when the scripts of a page are fetched, then each goes as the brotli or gzip copy of the build that the browser accepts, and as it is to one that accepts neither', async () => {
+    const context = await newContext(browser);
+    const page = await context.newPage();
+    const scripts: string[] = [];
+    page.on('response', (response) => {
+      if (new URL(response.url()).pathname.endsWith('.js')) scripts.push(new URL(response.url()).pathname);
+    });
+    await page.goto('/');
+    await expect.poll(() => page.getByRole('link', { name: 'Sign in' }).filter({ visible: true }).count(), SOON).toBeGreaterThan(0);
+    await context.close();
+    // The entry, the largest script on every page.
+    const entry = scripts.find((p) => /\/assets\/index-[^/]+\.js$/.test(p));
+    expect(entry).toBeDefined();
+    const raw = async (acceptEncoding: string) => {
+      // The bytes as sent (fetch would undo the encoding).
+      return new Promise<{ encoding: string | undefined; headers: http.IncomingHttpHeaders; body: Buffer }>((resolve, reject) => {
+        http.get(`${baseUrl()}${entry}`, { headers: { 'Accept-Encoding': acceptEncoding } }, (res) => {
+          const parts: Buffer[] = [];
+          res.on('data', (c: Buffer) => parts.push(c));
+          res.on('end', () => resolve({ encoding: res.headers['content-encoding'], headers: res.headers, body: Buffer.concat(parts) }));
+        }).on('error', reject);
+      });
+    };
+    // What Chromium asks with.
+    const chromium = await raw('gzip, deflate, br, zstd');
+    const gzipOnly = await raw('gzip');
+    const plain = await raw('identity');
+    expect(chromium.encoding).toBe('br');
+    expect(gzipOnly.encoding).toBe('gzip');
+    expect(plain.encoding).toBeUndefined();
+    // The copies the build wrote (vite.config.ts, precompress), not compressed again per request.
+    expect(chromium.body.equals(fs.readFileSync(path.resolve('dist/client', `.${entry}.br`)))).toBe(true);
+    expect(gzipOnly.body.equals(fs.readFileSync(path.resolve('dist/client', `.${entry}.gz`)))).toBe(true);
+    // The same script every way, and the copies smaller than the script.
+    expect(brotliDecompressSync(chromium.body).equals(plain.body)).toBe(true);
+    expect(gunzipSync(gzipOnly.body).equals(plain.body)).toBe(true);
+    expect(chromium.body.length).toBeLessThan(gzipOnly.body.length);
+    expect(gzipOnly.body.length).toBeLessThan(plain.body.length / 2);
+    // Caches keep one copy per encoding, for a year (the name changes with the content).
+    expect(chromium.headers.vary).toContain('Accept-Encoding');
+    expect(chromium.headers['cache-control']).toContain('immutable');
+    expect(Number(chromium.headers['content-length'])).toBe(chromium.body.length);
   });
 });
