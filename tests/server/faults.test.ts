@@ -74,7 +74,8 @@ describe('PostgreSQL restarted under load', () => {
     // Nothing but a clean JSON 503: never a 500, never a dropped connection.
     for (const s of during) {
       expect(s.status).toBe(503);
-      expect(s.code).toBe('database_unavailable');
+      // Unreachable, or (should every pooled connection stay stuck for the pool's whole wait) busy.
+      expect(['database_unavailable', 'busy']).toContain(s.code);
     }
     const firstOk = seen.find((s) => s.at >= back && s.status === 200);
     expect(firstOk, 'served again after the database returned').toBeTruthy();

@@ -28,6 +28,13 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
   } else if (typeof error?.status === 'number' && error.status >= 400 && error.status < 500 && error.expose) {
     status = error.status;
     body = { code: 'bad_request', message: String(error.message) };
+  } else if (error?.name === 'SequelizeConnectionAcquireTimeoutError') {
+    // Every connection of the pool was in use for the whole wait: the database is there, Sporewell
+    // is just busy (the same answer a socket gets, realtime/thread-handlers.ts).
+    status = 503;
+    body = { code: 'busy', message: 'Sporewell is very busy just now. Try again in a moment.' };
+    res.set('Retry-After', '2');
+    log.error('db.pool_busy', { path: req.path });
   } else if (isConnectionError(error)) {
     status = 503;
     body = { code: 'database_unavailable', message: 'Sporewell cannot reach its database just now. Try again in a few seconds.' };
