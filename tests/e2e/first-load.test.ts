@@ -83,16 +83,15 @@ describe('the first page a browser opens', () => {
     // The entry, the largest script on every page.
     const entry = scripts.find((p) => /\/assets\/index-[^/]+\.js$/.test(p));
     expect(entry).toBeDefined();
-    const raw = async (acceptEncoding: string) => {
-      // The bytes as sent (fetch would undo the encoding).
-      return new Promise<{ encoding: string | undefined; headers: http.IncomingHttpHeaders; body: Buffer }>((resolve, reject) => {
+    // The bytes as sent (fetch would undo the encoding).
+    const raw = (acceptEncoding: string) =>
+      new Promise<{ encoding: string | undefined; headers: http.IncomingHttpHeaders; body: Buffer }>((resolve, reject) => {
         http.get(`${baseUrl()}${entry}`, { headers: { 'Accept-Encoding': acceptEncoding } }, (res) => {
           const parts: Buffer[] = [];
           res.on('data', (c: Buffer) => parts.push(c));
           res.on('end', () => resolve({ encoding: res.headers['content-encoding'], headers: res.headers, body: Buffer.concat(parts) }));
         }).on('error', reject);
       });
-    };
     // What Chromium asks with.
     const chromium = await raw('gzip, deflate, br, zstd');
     const gzipOnly = await raw('gzip');

@@ -31,7 +31,7 @@ export function dayShortMonthYearClock(at: Date): string {
 
 /** "3 Mar", in the reader's time zone. */
 export function dayShortMonth(at: Date): string {
-  return `${at.getDate()} ${SHORT_MONTHS[at.getMonth()]}`;
+  return dayShortMonthOfDay(at.getMonth() + 1, at.getDate());
 }
 
 /** "March 2026", in the reader's time zone. */

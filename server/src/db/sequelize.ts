@@ -1,6 +1,7 @@
 // One Sequelize instance per process. Connection errors are retried for a short while, so a
 // PostgreSQL restart costs the requests in the gap (a 503 each) and not the process.
 import { Sequelize } from 'sequelize';
+import { AppError, databaseUnavailable, serverBusy } from '../lib/errors';
 
 let instance: Sequelize | null = null;
 
@@ -54,4 +55,10 @@ export function isConnectionError(error: unknown): boolean {
   const code = e.original?.code ?? (e as { code?: string }).code;
   if (code && ['ECONNREFUSED', 'ECONNRESET', '57P01', '57P02', '57P03', '08006', '08001', '08003'].includes(code)) return true;
   return /Connection terminated|ECONNREFUSED|terminating connection/.test(e.message ?? '');
+}
+
+/** What a failure to reach the database answers (HTTP and socket alike), or null for any other error. */
+export function databaseAnswer(error: unknown): AppError | null {
+  if ((error as Error | null)?.name === 'SequelizeConnectionAcquireTimeoutError') return serverBusy();
+  return isConnectionError(error) ? databaseUnavailable() : null;
 }

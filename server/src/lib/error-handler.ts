@@ -1,11 +1,12 @@
 import type { ErrorRequestHandler } from 'express';
 import { z } from 'zod';
-import { isConnectionError } from '../db/sequelize';
+import { databaseAnswer } from '../db/sequelize';
 import { AppError } from './errors';
 import { fieldsOf } from './http';
 import { log } from './logger';
 
 export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
+  let database: AppError | null;
   let status = 500;
   let body: { code: string; message: string; fields?: Record<string, string> } = {
     code: 'server_error',
@@ -28,18 +29,11 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
   } else if (typeof error?.status === 'number' && error.status >= 400 && error.status < 500 && error.expose) {
     status = error.status;
     body = { code: 'bad_request', message: String(error.message) };
-  } else if (error?.name === 'SequelizeConnectionAcquireTimeoutError') {
-    // Every connection of the pool was in use for the whole wait: the database is there, Sporewell
-    // is just busy (the same answer a socket gets, realtime/thread-handlers.ts).
-    status = 503;
-    body = { code: 'busy', message: 'Sporewell is very busy just now. Try again in a moment.' };
-    res.set('Retry-After', '2');
-    log.error('db.pool_busy', { path: req.path });
-  } else if (isConnectionError(error)) {
-    status = 503;
-    body = { code: 'database_unavailable', message: 'Sporewell cannot reach its database just now. Try again in a few seconds.' };
-    res.set('Retry-After', '5');
-    log.error('db.unavailable', { path: req.path });
+  } else if ((database = databaseAnswer(error))) {
+    status = database.status;
+    body = { code: database.code, message: database.message };
+    if (database.headers) res.set(database.headers);
+    log.error(database.code === 'busy' ? 'db.pool_busy' : 'db.unavailable', { path: req.path });
   } else {
     log.error('http.unhandled', { method: req.method, path: req.path, error: error?.stack ?? String(error) });
   }

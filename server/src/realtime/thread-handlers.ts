@@ -15,7 +15,7 @@ import {
   type ServerToClientEvents,
 } from '../../shared/socket-events';
 import type { AppContext } from '../context';
-import { isConnectionError } from '../db/sequelize';
+import { databaseAnswer } from '../db/sequelize';
 import { AppError } from '../lib/errors';
 import { fieldsOf } from '../lib/http';
 import { log } from '../lib/logger';
@@ -37,9 +37,8 @@ const withoutPhotos = (input: { photoIds?: number[] }) => !input.photoIds?.lengt
 
 export function errorAck(error: unknown): AckBody {
   if (error instanceof AppError) return { ok: false, error: { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) } };
-  // Every connection of the pool was in use for the whole wait: the database is there, Sporewell is just busy.
-  if ((error as Error | null)?.name === 'SequelizeConnectionAcquireTimeoutError') return { ok: false, error: { code: 'busy', message: 'Sporewell is very busy just now. Try again in a moment.' } };
-  if (isConnectionError(error)) return { ok: false, error: { code: 'database_unavailable', message: 'Sporewell cannot reach its database just now. Try again in a few seconds.' } };
+  const database = databaseAnswer(error);
+  if (database) return { ok: false, error: { code: database.code, message: database.message } };
   log.error('socket.unhandled', { error: (error as Error)?.stack ?? String(error) });
   return { ok: false, error: { code: 'server_error', message: 'Something went wrong on our side. Try again in a moment.' } };
 }

@@ -26,7 +26,7 @@ import pg from 'pg';
 import { isConnectionError } from '../../db/sequelize';
 import type { Role } from '../../../shared/case-status';
 import type { ThreadMessage } from '../../../shared/socket-events';
-import { AppError } from '../../lib/errors';
+import { AppError, databaseUnavailable } from '../../lib/errors';
 import { log } from '../../lib/logger';
 import { toMessage, type MessageRow } from './messages.repository';
 import { viewersOfCases } from './thread-events';
@@ -357,11 +357,6 @@ class MessageWriter {
 /** The database is away (or cannot be reached within the connect timeout): the same would happen to each post alone. */
 function unavailable(error: unknown): boolean {
   return isConnectionError(error) || /timeout exceeded when trying to connect/.test((error as Error)?.message ?? '');
-}
-
-/** What the error handler answers for an unreachable database: 503 with Retry-After, `database_unavailable`. */
-function databaseUnavailable(): AppError {
-  return new AppError(503, 'database_unavailable', 'Sporewell cannot reach its database just now. Try again in a few seconds.', undefined, { 'Retry-After': '5' });
 }
 
 async function writeWithRetries(pool: pg.Pool, posts: QueuedPost[], mode: LockMode): Promise<RowResult[]> {
