@@ -116,6 +116,13 @@ export default defineConfig(({ command }) => ({
               priority: 2,
             },
             {
+              // socket.io-client and its parts under a name of their own, so a browser test can
+              // tell when the live connection's code is fetched (after the first paint).
+              name: 'socket-io',
+              test: /[\\/]node_modules[\\/](socket\.io-client|socket\.io-parser|engine\.io-client|engine\.io-parser|@socket\.io[\\/]component-emitter)[\\/]/,
+              priority: 1,
+            },
+            {
               priority: 1,
               // What the case page shows above the thread and shares with other pages (batch
               // page, rounds, open a case's form): one chunk instead of nine of 1-6 KB each, so a

@@ -4,7 +4,7 @@ import path from 'node:path';
 import { brotliDecompressSync, gunzipSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { baseUrl, launch, newContext, signIn } from './browser';
+import { baseUrl, launch, newContext, PHONE, signIn } from './browser';
 
 let browser: Browser;
 // Sign-in (argon2) and the first pages of a fresh server are slow on a loaded machine.
@@ -67,6 +67,56 @@ describe('the first page a browser opens', () => {
     const page = await context.newPage();
     await page.goto('/cases/new');
     await expect.poll(() => page.url(), SOON).toContain('/sign-in?next=%2Fcases%2Fnew');
+    await context.close();
+  });
+
+  test('when a signed-in grower opens a case or "Open a case" by its address, then what is below the page\'s text and the live connection are fetched only after that text is painted', async () => {
+    const context = await newContext(browser, PHONE);
+    const first = await context.newPage();
+    await signIn(first, 'grower@example.test');
+    await expect.poll(() => new URL(first.url()).pathname, SOON).toBe('/batches');
+    const [someCase] = await (await first.request.get('/api/cases?mine=1&status=all&pageSize=1')).json().then((b: { items: { id: number }[] }) => b.items);
+    expect(someCase).toBeDefined();
+
+    // Each page: the part that must wait, found by its chunk's name, and what shows once it came.
+    const pages = [
+      { path: '/cases/new', later: [/\/assets\/open-case-form-[^/]+\.js$/, /\/assets\/socket-io-[^/]+\.js$/], ready: (page: Page) => page.getByLabel('Describe it in your own words').isVisible() },
+      { path: `/cases/${someCase.id}`, later: [/\/assets\/case-thread-[^/]+\.js$/, /\/assets\/close-case-panel-[^/]+\.js$/, /\/assets\/socket-io-[^/]+\.js$/], ready: (page: Page) => page.getByRole('heading', { name: 'Conversation' }).isVisible() },
+    ];
+    for (const { path: address, later, ready } of pages) {
+      const page = await context.newPage();
+      const seen = watch(page);
+      await page.goto(address);
+      await expect.poll(() => ready(page), SOON).toBe(true);
+      // The page's own text painted first (the largest-paint entries of the page's main content,
+      // not of the "Opening Sporewell…" spinner), and when each script was asked for.
+      const timing = await page.evaluate(
+        () =>
+          new Promise<{ painted: number[]; fetched: { name: string; at: number }[] }>((resolve) => {
+            new PerformanceObserver((list, observer) => {
+              observer.disconnect();
+              const painted = list
+                .getEntries()
+                .filter((e) => {
+                  const element = (e as PerformanceEntry & { element: Element | null }).element;
+                  return element?.closest('main') && !element.closest('[role="status"]');
+                })
+                .map((e) => e.startTime);
+              const fetched = performance.getEntriesByType('resource').map((e) => ({ name: new URL(e.name).pathname, at: e.startTime }));
+              resolve({ painted, fetched });
+            }).observe({ type: 'largest-contentful-paint', buffered: true });
+          }),
+      );
+      expect(timing.painted.length, `a paint of ${address}'s text`).toBeGreaterThan(0);
+      const textPainted = Math.min(...timing.painted);
+      for (const chunk of later) {
+        const fetched = timing.fetched.find((f) => chunk.test(f.name));
+        expect(fetched, `${chunk} on ${address}`).toBeDefined();
+        expect(fetched!.at, `${fetched!.name} asked for before ${address}'s text was painted`).toBeGreaterThan(textPainted);
+      }
+      expect(seen.errors).toEqual([]);
+      await page.close();
+    }
     await context.close();
   });
 

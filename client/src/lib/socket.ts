@@ -9,6 +9,7 @@ import type { Socket } from 'socket.io-client';
 import type { ClientToServerEvents, ServerToClientEvents } from '@shared/socket-events';
 import { authKeys } from '../features/auth/api/auth-keys';
 import { useUser } from '../features/auth/api/get-me';
+import { appPainted } from './after-paint';
 
 export type LiveSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
 
@@ -60,7 +61,9 @@ if (typeof window !== 'undefined') {
 }
 
 let socketIo: Promise<typeof import('socket.io-client')> | null = null;
-const loadSocketIo = () => (socketIo ??= import('socket.io-client'));
+// The first bind runs in an effect of the first render, which React may run before the browser
+// paints: the page's first paint does not wait for socket.io-client's download and start-up.
+const loadSocketIo = () => (socketIo ??= appPainted().then(() => import('socket.io-client')));
 
 function createSocket(io: (typeof import('socket.io-client'))['io']): LiveSocket {
   const socket: LiveSocket = io({

@@ -1,4 +1,4 @@
-import { lazy, Suspense } from 'react';
+import { lazy } from 'react';
 import { useSuspenseQuery } from '@tanstack/react-query';
 import { useParams } from 'react-router';
 import { PAGE_WIDTH } from '../../../components/layouts/content-layout';
@@ -11,10 +11,11 @@ import { AddCasePhotos } from '../../../features/cases/components/add-case-photo
 import { CaseHeader } from '../../../features/cases/components/case-header';
 import { CasePhotos } from '../../../features/cases/components/case-photos';
 import { SimilarCasesList } from '../../../features/cases/components/similar-cases-list';
+import { AfterFirstPaint } from '../../../components/ui/after-first-paint';
 import { Spinner } from '../../../components/ui/spinner';
 import { RecoveryPrompt } from '../../../features/closing/components/recovery-prompt';
 
-// Below the case itself, so fetched once the case is on screen rather than before it: the thread
+// Below the case itself, so fetched once the case has been painted (AfterFirstPaint): the thread
 // (with its composer and the live connection's handling) and the closing panel (with its form
 // library). The page's largest text, the case, no longer waits for their code.
 const CloseCasePanel = lazy(() => import('../../../features/closing/components/close-case-panel').then((m) => ({ default: m.CloseCasePanel })));
@@ -48,10 +49,10 @@ export default function CasePageRoute() {
         emptyText=""
       />
 
-      <Suspense fallback={<Spinner label="Opening the thread…" />}>
+      <AfterFirstPaint fallback={<Spinner label="Opening the thread…" />}>
         <CloseCasePanel caseId={id} />
         <CaseThread caseId={id} />
-      </Suspense>
+      </AfterFirstPaint>
     </div>
   );
 }

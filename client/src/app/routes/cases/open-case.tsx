@@ -1,7 +1,8 @@
-import { lazy, Suspense } from 'react';
+import { lazy } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { Link, useNavigate, useSearchParams } from 'react-router';
 import { ContentLayout } from '../../../components/layouts/content-layout';
+import { AfterFirstPaint } from '../../../components/ui/after-first-paint';
 import { Spinner } from '../../../components/ui/spinner';
 import { batchQueryOptions } from '../../../features/batches/api/get-batch';
 import { useBatches } from '../../../features/batches/api/get-batches';
@@ -9,8 +10,8 @@ import { formatMadeOn } from '../../../features/batches/lib/batch-format';
 import { batchParamOf } from './open-case.loader';
 
 // The form is a chunk of its own (with the form library, the schemas and the live check), fetched
-// once the page is on screen: the heading and the lead, the page's largest text, wait only for
-// this small file instead of for everything the form needs.
+// once the page has been painted (AfterFirstPaint): the heading and the lead, the page's largest
+// text, wait only for this small file instead of for everything the form needs.
 const OpenCaseForm = lazy(() => import('../../../features/cases/components/open-case-form').then((m) => ({ default: m.OpenCaseForm })));
 
 export default function OpenCaseRoute() {
@@ -37,7 +38,7 @@ export default function OpenCaseRoute() {
             <BatchChooser onChoose={(id) => setParams({ batch: String(id) })} />
           )}
           {/* The fallback holds a screen's height, so the footer is not in view to be pushed down when the form comes (a layout shift). */}
-          <Suspense
+          <AfterFirstPaint
             fallback={
               <div className="min-h-dvh">
                 <Spinner label="Opening the form…" />
@@ -45,7 +46,7 @@ export default function OpenCaseRoute() {
             }
           >
             <OpenCaseForm key={batchId ?? 'none'} batch={batch.data ?? null} onOpened={(created) => void navigate(`/cases/${created.id}`)} />
-          </Suspense>
+          </AfterFirstPaint>
         </>
       )}
     </ContentLayout>

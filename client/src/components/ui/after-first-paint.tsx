@@ -1,0 +1,28 @@
+import { Suspense, useEffect, useState, type ReactNode } from 'react';
+import { afterNextPaint } from '../../lib/after-paint';
+
+/**
+ * Renders `fallback` until the browser has painted the page once, then `children` (inside a
+ * Suspense boundary with the same fallback, for lazy parts).
+ *
+ * React.lazy starts fetching a chunk while the page is still being rendered, so a part below the
+ * fold that is lazy still has its code downloaded and run before the page's first paint: on
+ * "open a case" the form's chunks (about 70 kB) were fetched, and their scripts run, between the
+ * render and the paint of the page's lead text. Measured with Lighthouse, every request begun
+ * before the largest text is painted counts in its simulated time. Waiting two frames lets the
+ * page paint first; then the part comes as before.
+ */
+export function AfterFirstPaint({ fallback, children }: { fallback: ReactNode; children: ReactNode }) {
+  const painted = useAfterFirstPaint();
+  return <Suspense fallback={fallback}>{painted ? children : fallback}</Suspense>;
+}
+
+/** False on the first render; true once a frame has been drawn after it. */
+export function useAfterFirstPaint(): boolean {
+  const [painted, setPainted] = useState(false);
+  useEffect(() => {
+    if (painted) return;
+    return afterNextPaint(() => setPainted(true));
+  }, [painted]);
+  return painted;
+}
