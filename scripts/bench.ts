@@ -50,7 +50,7 @@ const ROUNDS = { openCases: 500, pageSize: 50, connections: 100, warmupSeconds: 
 // BENCH_THREAD_RATE changes the message rate, to look for the rate a build sustains; the table's
 // verdicts are for the budget's load only.
 // warmupSeconds: sent at the same rate before the timed 10 s, in both runs (BENCH_THREAD_WARMUP).
-const THREAD = { rooms: 500, mentors: 50, ratePerSecond: Number(process.env.BENCH_THREAD_RATE ?? 1500), seconds: 10, warmupSeconds: Number(process.env.BENCH_THREAD_WARMUP ?? 3), drainMs: 10_000 };
+const THREAD = { rooms: 500, mentors: 50, ratePerSecond: Number(process.env.BENCH_THREAD_RATE ?? 1500), seconds: 10, warmupSeconds: Number(process.env.BENCH_THREAD_WARMUP ?? 3), drainMs: 10_000, lightRatePerSecond: 50, lightSeconds: 5 };
 // autocannon's overallRate gives each of `connections` connections its share per second, sent at
 // the start of each second: 50 connections × 1/s is 50 sign-ins arriving together every second.
 // anchorCapacity: QUALITY.md's "argon2id at the OWASP minimum ~25 ms, ~85/s on 2 cores".
@@ -371,10 +371,18 @@ async function main(): Promise<number> {
             runThreadLoad({ servers, rooms, ratePerSecond: THREAD.ratePerSecond, seconds: THREAD.seconds, warmupSeconds: THREAD.warmupSeconds, maxMessages: THREAD.ratePerSecond * THREAD.seconds, drainMs: THREAD.drainMs, cpu });
           say(`live thread: ${rooms.length * 2} sockets in ${rooms.length} rooms, ${THREAD.ratePerSecond} messages/s for ${THREAD.seconds} s, bare relay first…`);
           const relay = await startChild('bare-relay', 'scripts/bench/bare-relay.ts', { NODE_ENV: 'production' });
+          // The same sockets at a light rate, after the full one: how long a post takes when nothing
+          // queues, so the table shows how much of the figure is the store's own round trip.
+          const light = (servers: string[]) =>
+            runThreadLoad({ servers, rooms, ratePerSecond: THREAD.lightRatePerSecond, seconds: THREAD.lightSeconds, warmupSeconds: 1, maxMessages: THREAD.lightRatePerSecond * THREAD.lightSeconds, drainMs: THREAD.drainMs });
           const bare = await load([relay.info.url], { relay: () => processCpu(relay.child.proc.pid!), clients: selfCpu });
+          say(`live thread: bare relay at ${THREAD.lightRatePerSecond} messages/s…`);
+          const bareLight = await light([relay.info.url]);
           await relay.child.stop();
           say('live thread: Sporewell…');
           const ours = await load([app.url], { Sporewell: () => processCpu(appChild.proc.pid!), PostgreSQL: () => clusterCpu(cluster.dataDir), clients: selfCpu });
+          say(`live thread: Sporewell at ${THREAD.lightRatePerSecond} messages/s…`);
+          const oursLight = await light([app.url]);
           const limit = BUDGET.threadFactor * bare.latency.p95;
           // A send that never got its "stored" ack fails the row too, even with nothing lost.
           const complete = (r: ThreadLoadResult) => r.sockets === rooms.length * 2 && r.joinFailures === 0 && r.acked === r.sent;
@@ -392,6 +400,12 @@ async function main(): Promise<number> {
               measured: `${ours.lost} / ${ours.duplicated} of ${int(ours.acked)} acked${unacked(ours)}`,
               budget: '0 / 0',
               verdict: verdict(ours.lost === 0 && ours.duplicated === 0 && complete(ours)),
+            },
+            {
+              work: `live thread at ${THREAD.lightRatePerSecond} messages/s, nothing queued (reference): p95`,
+              measured: `${ms(oursLight.latency.p95)} (p50 ${ms(oursLight.latency.p50)}) vs bare ${ms(bareLight.latency.p95)}; lost ${oursLight.lost}, dup ${oursLight.duplicated}${unacked(oursLight)}`,
+              budget: '—',
+              verdict: oursLight.lost || oursLight.duplicated || !complete(oursLight) ? 'MISSES' : '',
             },
           );
           notes.push(threadNote('bare relay', bare, null), threadNote('Sporewell, one process', ours, await storedMessages(databaseUrl, ours.clientIdPrefix)));
