@@ -206,4 +206,21 @@ describe('ASVS 7.4.x / 7.3.x: sessions that end take their sockets with them', (
     expect(await join(socket, caseId)).toMatchObject({ ok: false, error: { code: 'unauthorized' } });
     expect(await dropped).toBe('io server disconnect');
   });
+  test('ASVS 7.3.2: when the session is older than the absolute limit, then a new handshake with it is refused', async () => {
+    const grower = await person('grower');
+    const hours = live.server.config.SESSION_ABSOLUTE_HOURS + 1;
+    await getSequelize().query(
+      `UPDATE session SET sess = jsonb_set(sess::jsonb, '{startedAt}', to_jsonb((extract(epoch from now() - make_interval(hours => :hours)) * 1000)::bigint))::json
+        WHERE (sess -> 'passport' ->> 'user') = :id`,
+      { replacements: { id: String(grower.user.id), hours } },
+    );
+    await expect(connect(grower.cookie)).rejects.toThrow('Sign in first.');
+  });
+
+  test('ASVS 7.4.2: when the account is disabled behind a live session, then a new handshake with it is refused', async () => {
+    const grower = await person('grower');
+    // Straight in the table, as another process or a steward's hand would leave it: nothing in this process hears of it.
+    await getSequelize().query(`UPDATE users SET disabled = true WHERE id = :id`, { replacements: { id: grower.user.id } });
+    await expect(connect(grower.cookie)).rejects.toThrow('Sign in first.');
+  });
 });

@@ -1,15 +1,16 @@
 // Who is on the other end of a socket. The handshake carries the Express session cookie
-// (express-session runs on the engine's handshake request); the person is then read from the
-// session row and the users table together, at the handshake and again on every event that
-// reads or writes, so a sign-out, an expired session, a disabled account or a role change
-// applies at once rather than at the next reconnect.
+// (express-session runs on the engine's handshake request, and the session store reads the row
+// and its user together, session-reader.ts); the person is taken from that read at the
+// handshake, and read again the same way on every event that reads or writes, so a sign-out,
+// an expired session, a disabled account or a role change applies at once rather than at the
+// next reconnect. Those reads go through the same batching reader as HTTP requests: sockets
+// asking in the same turn of the event loop (a reconnect storm) share one statement.
 import type { IncomingMessage } from 'node:http';
 import type { Request } from 'express';
-import { QueryTypes } from 'sequelize';
 import type { Role } from '../../shared/case-status';
-import { getSequelize } from '../db/sequelize';
 import { allowedOrigins } from '../lib/security';
 import { log } from '../lib/logger';
+import type { SessionRead, SessionReader } from '../lib/session-reader';
 import type { UserRecord } from '../modules/users/users.repository';
 
 export interface SocketData {
@@ -22,24 +23,32 @@ export interface SocketData {
 export type SessionRequest = IncomingMessage & {
   _query?: Record<string, string>;
   sessionID?: string;
-  session?: { passport?: { user?: unknown } };
+  session?: { passport?: { user?: unknown }; startedAt?: unknown };
 };
 
-/** The signed-in person behind a live session, or null when the session ended or the account is off. */
-export async function loadSessionUser(sid: string, absoluteHours: number): Promise<UserRecord | null> {
-  const [row] = await getSequelize().query<UserRecord & { startedAt: string | null }>(
-    `SELECT u.id, u.email, u.display_name AS "displayName", u.role, u.email_verified AS "emailVerified", u.disabled,
-            u.about, u.notify_urgent AS "notifyUrgent", u.created_at AS "createdAt", s.sess ->> 'startedAt' AS "startedAt"
-       FROM session s
-       JOIN users u ON u.id = CASE WHEN (s.sess -> 'passport' ->> 'user') ~ '^[0-9]{1,9}$' THEN (s.sess -> 'passport' ->> 'user')::int END
-      WHERE s.sid = :sid AND s.expire > now() AND NOT u.disabled`,
-    { replacements: { sid }, type: QueryTypes.SELECT },
-  );
-  if (!row) return null;
-  // The same absolute limit the HTTP side enforces (app.ts absoluteSessionTimeout).
-  if (row.startedAt && Date.now() - Number(row.startedAt) > absoluteHours * 3_600_000) return null;
-  const { startedAt: _startedAt, ...user } = row;
+/**
+ * The person a session names, or null: no live session, no user, a disabled account, or a
+ * session started more than `absoluteHours` ago (the limit the HTTP side enforces in app.ts
+ * absoluteSessionTimeout). `startedAt` is the session's own field (ms since the epoch).
+ */
+export function signedInUser(read: Pick<SessionRead, 'user'> | null, startedAt: unknown, absoluteHours: number): UserRecord | null {
+  const user = read?.user;
+  if (!user || user.disabled) return null;
+  if (typeof startedAt === 'number' && Date.now() - startedAt > absoluteHours * 3_600_000) return null;
   return user;
+}
+
+/** The signed-in person behind a live session, read now, or null when the session ended or the account is off. */
+export async function loadSessionUser(reader: SessionReader, sid: string, absoluteHours: number): Promise<UserRecord | null> {
+  const read = await reader.readAsync(sid);
+  if (!read) return null;
+  let startedAt: unknown;
+  try {
+    startedAt = (JSON.parse(read.sess) as { startedAt?: unknown }).startedAt;
+  } catch {
+    return null;
+  }
+  return signedInUser(read, startedAt, absoluteHours);
 }
 
 /**

@@ -72,7 +72,7 @@ export function registerThreadHandlers(io: ThreadServer, socket: ThreadSocket, c
   let known: Express.User | null = null;
   /** The person again, fresh from the session and users tables; null when the session or account is gone. */
   const freshUser = async (): Promise<Express.User | null> => {
-    const user = await loadSessionUser(socket.data.sid, ctx.config.SESSION_ABSOLUTE_HOURS);
+    const user = await loadSessionUser(ctx.sessions.reader, socket.data.sid, ctx.config.SESSION_ABSOLUTE_HOURS);
     // A changed role means different rooms: the socket is dropped and the client reconnects into the right ones.
     if (!user || user.role !== socket.data.role) return (known = null);
     socket.data.displayName = user.displayName;
