@@ -11,6 +11,7 @@ import { renderShell, shellTemplate, type ShellData } from './lib/client-shell';
 import { errorHandler } from './lib/error-handler';
 import { AppError, notFound } from './lib/errors';
 import { crossSiteGuard, jsonOnly, securityHeaders } from './lib/security';
+import { pastAbsoluteLimit } from './lib/session';
 import { authRouter } from './modules/auth/auth.router';
 import { batchesRouter } from './modules/batches/batches.router';
 import { casesRouter } from './modules/cases/cases.router';
@@ -79,10 +80,8 @@ export function buildApp(ctx: AppContext): Express {
 }
 
 function absoluteSessionTimeout(hours: number) {
-  const limit = hours * 3_600_000;
   return (req: Request, _res: Response, next: NextFunction) => {
-    const started = req.session?.startedAt;
-    if (started && Date.now() - started > limit) {
+    if (pastAbsoluteLimit(req.session?.startedAt, hours)) {
       return req.session.destroy(() => {
         // A fresh, empty session object stands in for the rest of this request.
         (req as { user?: unknown }).user = undefined;

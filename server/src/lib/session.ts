@@ -65,6 +65,11 @@ type WithRead = { [READ]?: SessionRead };
 const SAVED = Symbol('sporewell.sessionSavedByRequest');
 type WithSaved = { [SAVED]?: boolean };
 
+/** Whether a session that began at `startedAt` (ms since the epoch, the session's own field) is past the absolute limit (ASVS 7.3.2). */
+export function pastAbsoluteLimit(startedAt: unknown, hours: number): boolean {
+  return typeof startedAt === 'number' && startedAt > 0 && Date.now() - startedAt > hours * 3_600_000;
+}
+
 /** The user read with this request's session, or undefined when it was not read that way. */
 export function sessionUserOf(req: Request): UserRecord | null | undefined {
   return (req as WithRead)[READ]?.user;

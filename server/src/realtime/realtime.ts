@@ -10,7 +10,6 @@ import { Server } from 'socket.io';
 import type { AppContext } from '../context';
 import { getSequelize } from '../db/sequelize';
 import { log } from '../lib/logger';
-import { sessionUserOf } from '../lib/session';
 import { sessionEvents } from '../lib/session-events';
 import { warmMessageWriter } from '../modules/threads/message-writer';
 import { messagesRepository } from '../modules/threads/messages.repository';
@@ -18,7 +17,7 @@ import { addThreadPublisher, type PublishOptions, type ThreadChange, type Thread
 import { usersRepository } from '../modules/users/users.repository';
 import { attachFanout, type Fanout } from './fanout';
 import { caseRoom, caseStaffRoom, sessionRoom, STAFF_ROOM, userRoom } from './rooms';
-import { loadSessionUser, originGuard, refusal, signedInUser, type SessionRequest } from './socket-auth';
+import { handshakeUser, originGuard, refusal, type SessionRequest } from './socket-auth';
 import { errorAck, presenceSettled, registerThreadHandlers, type ThreadServer } from './thread-handlers';
 import { trackViewers, type ViewerRegistry } from './viewers';
 
@@ -62,14 +61,7 @@ export function attachRealtime(httpServer: http.Server, ctx: AppContext, options
       log.security('socket.refused', { reason: 'signed_out', ip: req.socket.remoteAddress });
       return next(refusal('unauthorized', 'Sign in first.'));
     }
-    // The store has just read this session and its user for this very request (the middleware
-    // above): that read is as fresh as another would be. Read again only when it was not made so.
-    const read = sessionUserOf(req as unknown as Request);
-    const person =
-      read === undefined
-        ? loadSessionUser(ctx.sessions.reader, sid, ctx.config.SESSION_ABSOLUTE_HOURS)
-        : Promise.resolve(signedInUser({ user: read }, req.session?.startedAt, ctx.config.SESSION_ABSOLUTE_HOURS));
-    person.then(
+    handshakeUser(req, ctx.sessions.reader, ctx.config.SESSION_ABSOLUTE_HOURS).then(
       (user) => {
         if (!user) {
           log.security('socket.refused', { reason: 'session_ended', ip: req.socket.remoteAddress });

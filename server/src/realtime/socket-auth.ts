@@ -10,6 +10,7 @@ import type { Request } from 'express';
 import type { Role } from '../../shared/case-status';
 import { allowedOrigins } from '../lib/security';
 import { log } from '../lib/logger';
+import { pastAbsoluteLimit, sessionUserOf } from '../lib/session';
 import type { SessionRead, SessionReader } from '../lib/session-reader';
 import type { UserRecord } from '../modules/users/users.repository';
 
@@ -28,14 +29,23 @@ export type SessionRequest = IncomingMessage & {
 
 /**
  * The person a session names, or null: no live session, no user, a disabled account, or a
- * session started more than `absoluteHours` ago (the limit the HTTP side enforces in app.ts
- * absoluteSessionTimeout). `startedAt` is the session's own field (ms since the epoch).
+ * session past its absolute limit (the same rule as the HTTP side's, `pastAbsoluteLimit`).
  */
 export function signedInUser(read: Pick<SessionRead, 'user'> | null, startedAt: unknown, absoluteHours: number): UserRecord | null {
   const user = read?.user;
-  if (!user || user.disabled) return null;
-  if (typeof startedAt === 'number' && Date.now() - startedAt > absoluteHours * 3_600_000) return null;
+  if (!user || user.disabled || pastAbsoluteLimit(startedAt, absoluteHours)) return null;
   return user;
+}
+
+/**
+ * The person behind a handshake. The session store has just read this session and its user for
+ * this very request (express-session runs on the handshake): that read is as fresh as another
+ * would be, so it is read again only when it was not made that way.
+ */
+export function handshakeUser(req: SessionRequest, reader: SessionReader, absoluteHours: number): Promise<UserRecord | null> {
+  const read = sessionUserOf(req as unknown as Request);
+  if (read === undefined) return req.sessionID ? loadSessionUser(reader, req.sessionID, absoluteHours) : Promise.resolve(null);
+  return Promise.resolve(signedInUser({ user: read }, req.session?.startedAt, absoluteHours));
 }
 
 /** The signed-in person behind a live session, read now, or null when the session ended or the account is off. */
