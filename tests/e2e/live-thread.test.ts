@@ -50,6 +50,9 @@ function inThread(page: Page, text: string) {
   return page.getByRole('log', { name: 'Messages' }).getByText(text, { exact: true }).count();
 }
 
+/** The grower is on a phone, by touch alone: Send is tapped (Return there starts a new line). */
+const tapSend = (page: Page) => page.getByRole('button', { name: 'Send', exact: true }).tap();
+
 describe('the rounds and the live thread', () => {
   test('when the mentor opens the rounds, then the grower\'s case is listed and the mentor can claim it', async () => {
     await mentor.goto('/rounds');
@@ -82,7 +85,7 @@ describe('the rounds and the live thread', () => {
 
     const fromGrower = `The bubbles are smaller this morning (${stamp}).`;
     await grower.getByLabel(/^Write to/).fill(fromGrower);
-    await grower.keyboard.press('Enter');
+    await tapSend(grower);
     await expect.poll(() => inThread(mentor, fromGrower), LIVE).toBe(1);
     await expect.poll(() => inThread(grower, fromGrower), LIVE).toBe(1);
 
@@ -94,6 +97,28 @@ describe('the rounds and the live thread', () => {
     await mentor.keyboard.press('Enter');
     await expect.poll(() => inThread(grower, fromMentor), LIVE).toBe(1);
     await expect.poll(() => inThread(mentor, fromMentor), LIVE).toBe(1);
+  });
+
+  test('when the grower presses Return on a phone, then it starts a new line, and Send sends both lines as one message', async () => {
+    const stamp = Date.now().toString(36);
+    const box = grower.getByLabel(/^Write to/);
+    await expect.poll(() => grower.getByText('Tap Send when it is ready.').count(), LIVE).toBe(1);
+    await box.fill(`The froth went down (${stamp}).`);
+    await box.press('Enter');
+    await box.pressSequentially('It smells sweet again.');
+    expect(await box.inputValue()).toBe(`The froth went down (${stamp}).\nIt smells sweet again.`);
+    expect(await inThread(grower, `The froth went down (${stamp}).`)).toBe(0);
+
+    await tapSend(grower);
+    // One message, its line break kept (the text match itself treats the break as a space).
+    const both = `The froth went down (${stamp}). It smells sweet again.`;
+    await expect.poll(() => inThread(mentor, both), LIVE).toBe(1);
+    await expect.poll(() => inThread(grower, both), LIVE).toBe(1);
+    const shown = await mentor.getByRole('log', { name: 'Messages' }).getByText(both, { exact: true }).textContent();
+    expect(shown).toBe(`The froth went down (${stamp}).\nIt smells sweet again.`);
+    expect(await box.inputValue()).toBe('');
+    // On the desktop, Enter still sends and the hint says so.
+    expect(await mentor.getByText('Enter sends. Shift+Enter starts a new line.').count()).toBe(1);
   });
 
   test('when the mentor writes a mentor aside, then the grower never sees it, live or after a reload', async () => {
@@ -134,7 +159,7 @@ describe('the rounds and the live thread', () => {
     }
     const offlineWords = `Written with no signal (${stamp}).`;
     await grower.getByLabel(/^Write to/).fill(offlineWords);
-    await grower.keyboard.press('Enter');
+    await tapSend(grower);
     await expect.poll(() => grower.getByText(/waiting for the connection/).count(), LIVE).toBe(1);
     await shot(grower, 'live-thread-offline-phone');
 

@@ -1,16 +1,6 @@
-import { useSyncExternalStore } from 'react';
-
-const QUERY = '(min-width: 640px)';
+import { useMediaQuery } from '../../../lib/use-media-query';
 
 /** True from the `sm` breakpoint up; charts give their labels more room there. */
 export function useWideScreen(): boolean {
-  return useSyncExternalStore(
-    (onChange) => {
-      const media = window.matchMedia(QUERY);
-      media.addEventListener('change', onChange);
-      return () => media.removeEventListener('change', onChange);
-    },
-    () => window.matchMedia(QUERY).matches,
-    () => true,
-  );
+  return useMediaQuery('(min-width: 640px)', true);
 }

@@ -4,6 +4,7 @@ import { Button, buttonClasses } from '../../../components/ui/button';
 import { cx } from '../../../components/ui/cx';
 import { isApiError } from '../../../lib/api-client';
 import { grouped } from '../../../lib/english-numbers';
+import { useTouchOnly } from '../../../lib/use-media-query';
 import { usePhotoDrafts, type PhotoDraft } from '../../cases/hooks/use-photo-drafts';
 import { useSendMessage } from '../api/send-message';
 import { uploadThreadPhoto } from '../api/upload-thread-photos';
@@ -41,6 +42,8 @@ export function Composer({ caseId, canAside, onlyAsides = false, audience }: Com
   const photos = usePhotoDrafts();
   const { send } = useSendMessage(caseId);
   const typing = useTypingSignal(caseId);
+  // By touch alone, Return starts a new line and the Send button sends.
+  const touchOnly = useTouchOnly();
 
   const length = body.trim().length;
   const over = length > MESSAGE_MAX;
@@ -88,7 +91,7 @@ export function Composer({ caseId, canAside, onlyAsides = false, audience }: Com
 
   function onKeyDown(event: KeyboardEvent<HTMLTextAreaElement>) {
     // Enter sends; Shift+Enter is a new line; Enter that confirms an input method's word is neither.
-    if (event.key !== 'Enter' || event.shiftKey || event.nativeEvent.isComposing) return;
+    if (touchOnly || event.key !== 'Enter' || event.shiftKey || event.nativeEvent.isComposing) return;
     event.preventDefault();
     void submit();
   }
@@ -116,7 +119,7 @@ export function Composer({ caseId, canAside, onlyAsides = false, audience }: Com
         id={`${id}-body`}
         value={body}
         rows={3}
-        enterKeyHint="send"
+        enterKeyHint={touchOnly ? 'enter' : 'send'}
         aria-describedby={cx(hintId, length >= COUNT_FROM && countId, error && errorId) || undefined}
         aria-invalid={over || undefined}
         onChange={(event) => {
@@ -134,7 +137,9 @@ export function Composer({ caseId, canAside, onlyAsides = false, audience }: Com
       />
       <div className="mt-1 flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1">
         <p id={hintId} className="text-sm text-loam-soft">
-          Enter sends. Shift+Enter starts a new line.
+          {touchOnly
+            ? `Tap ${aside ? 'Add aside' : 'Send'} when it is ready.`
+            : 'Enter sends. Shift+Enter starts a new line.'}
         </p>
         <p id={countId} aria-live="polite" className={cx('text-sm font-semibold', over ? 'text-ember' : 'text-loam-soft')}>
           {length >= COUNT_FROM &&
