@@ -88,6 +88,25 @@ describe('batches like this', () => {
     expect(item.reasons.join(' ')).toMatch(/Mentions .*cinnamon/);
   });
 
+  test('when the draft and a resolved case share everyday fillers ("lots of", "quite a bit"), then only the telling words are given as the reason', async () => {
+    const { browser, user } = await signedIn(t.app, 'mentor');
+    const word = nonce();
+    // Four telling words in all (the reason names at most four): the nonce, crock, froth and odd.
+    const fillers = 'Lots of froth, quite a bit, still something rather odd.';
+    const target = await createResolvedCase(user.id, { stage: 'FPJ', symptoms: ['free-liquid'], description: `The ${word} crock. ${fillers}` });
+    const res = await browser
+      .post('/api/cases/similar')
+      .set(JSON_HEADERS)
+      .send({ stage: 'FPJ', description: `My ${word} crock has ${fillers.toLowerCase()}`, limit: 10 });
+    expect(res.status).toBe(200);
+    const item = res.body.items.find((i: { id: number }) => i.id === target);
+    const mentions = item.reasons.find((r: string) => r.startsWith('Mentions '));
+    expect(mentions).toMatch(new RegExp(word));
+    expect(mentions).toMatch(/crock/);
+    expect(mentions).not.toMatch(/\b(lots|quite|bit|still|something|rather)\b/);
+    expect(queryWords(fillers)).toEqual(['froth', 'odd']);
+  });
+
   test('when a case asks for batches like it, then it never lists itself, nor open cases; the grower sees only published ones, as field notes', async () => {
     const grower = await signedIn(t.app);
     const mentor = await signedIn(t.app, 'mentor');

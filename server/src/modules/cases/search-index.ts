@@ -19,6 +19,9 @@ export const STOP_WORDS: readonly string[] = [
   'with', 'would', 'your', 'about', 'after', 'again', 'could', 'their', 'there', 'these', 'those', 'which', 'while',
   'other', 'should', 'because', 'before', 'being', 'does', 'doing', 'each', 'few', 'same', 'where', 'both', 'once', 'ours',
   'under', 'until', 'above', 'below', 'between', 'through', 'during', 'mine', 'myself', 'itself', 'know', 'think',
+  // fillers of everyday speech: "lots of liquid", "quite a bit", "something odd"
+  'lot', 'lots', 'bit', 'quite', 'really', 'rather', 'pretty', 'even', 'still', 'though', 'maybe', 'thing', 'things',
+  'something', 'anything',
 ];
 
 const STOP = new Set(STOP_WORDS);
