@@ -1334,8 +1334,8 @@ export const DEMO_CASES: DemoCase[] = [
       { authorKey: 'marta', kind: 'text', body: 'Some froth is normal early on. Your sugar is right at equal weights, so I would look at the warmth first. Can you move it somewhere shaded and cool today?', minutesAfterOpen: 35 },
       { authorKey: 'marta', kind: 'aside', body: 'Same grower as the LAB case last month. Sugar is fine here; it is the sun.', minutesAfterOpen: 36 },
       { authorKey: 'rowan', kind: 'text', body: 'Moved it to the floor of the hall cupboard. Should I skim the froth?', minutesAfterOpen: 80 },
-      { authorKey: 'marta', kind: 'text', body: 'Yes, skim it gently with a clean spoon. Look again this evening and tell me how it smells.', minutesAfterOpen: 95 },
-      { authorKey: 'rowan', kind: 'text', body: 'Evening: the froth is lower and it smells more sweet than sour.', minutesAfterOpen: 600 },
+      { authorKey: 'marta', kind: 'text', body: 'Yes, skim it gently with a clean spoon. Look again in a few hours and tell me how it smells.', minutesAfterOpen: 95 },
+      { authorKey: 'rowan', kind: 'text', body: 'Looked again just now: the froth is lower and it smells more sweet than sour.', minutesAfterOpen: 600 },
     ],
   },
   {
@@ -1370,7 +1370,7 @@ export const DEMO_CASES: DemoCase[] = [
     openedDaysAgo: 0.9, status: 'awaiting_mentor',
     messages: [
       { authorKey: 'juniper', kind: 'text', body: 'Only on the pieces above the liquid. Photo attached.', minutesAfterOpen: 0 },
-      { authorKey: 'juniper', kind: 'text', body: 'The spots are a little bigger this evening.', minutesAfterOpen: 600 },
+      { authorKey: 'juniper', kind: 'text', body: 'The spots are a little bigger than when I first looked.', minutesAfterOpen: 600 },
     ],
   },
   {
