@@ -136,6 +136,8 @@ export interface BatchView {
   updatedAt: string;
   /** only on GET /api/batches/:id: the cases opened about this batch, newest first */
   cases?: { id: number; title: string; status: CaseStatus; openedAt: string }[];
+  /** only on GET /api/batches: the newest case about this batch still open, or null */
+  openCase?: { id: number; title: string; status: CaseStatus } | null;
 }
 
 // ---------------------------------------------------------------------------------------------

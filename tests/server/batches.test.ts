@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { agent, makeTestApp, type TestApp } from '../setup/test-app';
 import { JSON_HEADERS, signedIn } from '../factories/sign-in';
-import { createBatch, dayString } from '../factories/cases';
+import { createBatch, createCase, createResolvedCase, dayString, daysAgo } from '../factories/cases';
 
 let t: TestApp;
 beforeAll(() => {
@@ -66,6 +66,25 @@ describe('the batch shelf', () => {
     expect(res.body.total).toBe(2);
     expect(res.body.items.map((b: { label: string }) => b.label)).toEqual(['newer', 'older']);
     expect(res.body.items[1].ageDays).toBe(30);
+  });
+
+  test('when a batch has a case still open, then the shelf names its newest open case; closed cases are not named', async () => {
+    const { browser, user } = await signedIn(t.app);
+    const worked = await createBatch(user.id, { label: 'worked on', madeOn: dayString(3) });
+    const settled = await createBatch(user.id, { label: 'settled', madeOn: dayString(6) });
+    const quiet = await createBatch(user.id, { label: 'quiet', madeOn: dayString(9) });
+    await createCase(user.id, { batchId: worked.id, title: 'First worry about it', openedAt: daysAgo(2) });
+    const newest = await createCase(user.id, { batchId: worked.id, title: 'Second worry about it', openedAt: daysAgo(1), status: 'in_conversation' });
+    await createResolvedCase(user.id, { batchId: worked.id, title: 'Sorted out today', openedAt: daysAgo(0.5) });
+    await createResolvedCase(user.id, { batchId: settled.id, title: 'All well again' });
+    const res = await browser.get('/api/batches');
+    expect(res.status).toBe(200);
+    const byLabel = Object.fromEntries(res.body.items.map((b: { label: string; openCase: unknown }) => [b.label, b.openCase]));
+    expect(byLabel).toEqual({
+      'worked on': { id: newest, title: 'Second worry about it', status: 'in_conversation' },
+      settled: null,
+      quiet: null,
+    });
   });
 
   test("when another grower asks for, or changes, someone's batch, then 404 and nothing changes", async () => {

@@ -4,7 +4,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { getSequelize } from '../../db/sequelize';
 import type { SugarTypeId } from '../../../shared/batch-check';
 import type { BatchCreate, BatchPatch } from '../../../shared/case-schemas';
-import type { CaseStatus } from '../../../shared/case-status';
+import { OPEN_STATUSES, type CaseStatus } from '../../../shared/case-status';
 import type { MassUnit } from '../../../shared/units';
 import type { StageId } from '../../../shared/vocabulary';
 
@@ -32,6 +32,13 @@ export interface BatchRow extends WeightColumns {
   notes: string;
   createdAt: Date;
   updatedAt: Date;
+}
+
+/** A shelf row: the batch and its newest open case, if any. */
+export interface ShelfBatchRow extends BatchRow {
+  openCaseId: number | null;
+  openCaseTitle: string | null;
+  openCaseStatus: CaseStatus | null;
 }
 
 const COLUMNS = `
@@ -95,12 +102,19 @@ export const batchesRepository = {
     return rows[0]?.ownerId ?? null;
   },
 
-  async listOwned(ownerId: number, page: number, pageSize: number): Promise<{ rows: BatchRow[]; total: number }> {
+  async listOwned(ownerId: number, page: number, pageSize: number): Promise<{ rows: ShelfBatchRow[]; total: number }> {
     const sequelize = getSequelize();
     const [rows, count] = await Promise.all([
-      sequelize.query<BatchRow>(
-        `SELECT ${COLUMNS} FROM batches b WHERE b.owner_id = :ownerId ORDER BY b.made_on DESC, b.id DESC LIMIT :limit OFFSET :offset`,
-        { replacements: { ownerId, limit: pageSize, offset: (page - 1) * pageSize }, type: QueryTypes.SELECT },
+      sequelize.query<ShelfBatchRow>(
+        `SELECT ${COLUMNS}, oc.id AS "openCaseId", oc.title AS "openCaseTitle", oc.status AS "openCaseStatus"
+           FROM batches b
+           LEFT JOIN LATERAL (
+             SELECT c.id, c.title, c.status FROM cases c
+              WHERE c.batch_id = b.id AND c.status IN (:open)
+              ORDER BY c.opened_at DESC, c.id DESC LIMIT 1
+           ) oc ON true
+          WHERE b.owner_id = :ownerId ORDER BY b.made_on DESC, b.id DESC LIMIT :limit OFFSET :offset`,
+        { replacements: { ownerId, open: [...OPEN_STATUSES], limit: pageSize, offset: (page - 1) * pageSize }, type: QueryTypes.SELECT },
       ),
       sequelize.query<{ total: number }>(`SELECT count(*)::int AS total FROM batches WHERE owner_id = :ownerId`, {
         replacements: { ownerId },

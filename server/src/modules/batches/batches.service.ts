@@ -61,7 +61,11 @@ export const batchesService = {
 
   async list(ownerId: number, page: number, pageSize: number) {
     const { rows, total } = await batchesRepository.listOwned(ownerId, page, pageSize);
-    return { items: rows.map(batchView), total, page, pageSize };
+    const items = rows.map((row) => ({
+      ...batchView(row),
+      openCase: row.openCaseId === null ? null : { id: row.openCaseId, title: row.openCaseTitle!, status: row.openCaseStatus! },
+    }));
+    return { items, total, page, pageSize };
   },
 
   async ownedOr404(ownerId: number, id: number): Promise<BatchRow> {

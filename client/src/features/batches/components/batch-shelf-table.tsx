@@ -9,6 +9,7 @@ import {
   type SortingState,
 } from '@tanstack/react-table';
 import { STAGE_SUGAR_RULES } from '@shared/batch-check-model';
+import { STATUS_LABELS } from '@shared/case-status';
 import type { BatchCheckSummary, BatchView } from '@shared/case-schemas';
 import { cx } from '../../../components/ui/cx';
 import { RiskBadge } from '../../batch-check/components/risk-badge';
@@ -30,9 +31,12 @@ const columns = [
     id: 'label',
     header: 'Label',
     cell: (info) => (
-      <Link to={`/batches/${info.row.original.batch.id}`} className="font-bold">
-        {info.getValue()}
-      </Link>
+      <>
+        <Link to={`/batches/${info.row.original.batch.id}`} className="font-bold">
+          {info.getValue()}
+        </Link>
+        <OpenCaseLine batch={info.row.original.batch} />
+      </>
     ),
   }),
   column.accessor((row) => row.batch.stage, { id: 'stage', header: 'Stage' }),
@@ -56,6 +60,17 @@ const columns = [
     cell: (info) => <RowActions batch={info.row.original.batch} />,
   }),
 ];
+
+/** The batch's case still being worked on, so the grower goes back to it rather than opening another. */
+function OpenCaseLine({ batch }: { batch: BatchView }) {
+  if (!batch.openCase) return null;
+  return (
+    <p className="mt-1 text-base">
+      <span className="font-semibold text-clay-deep">{STATUS_LABELS[batch.openCase.status]}:</span>{' '}
+      <Link to={`/cases/${batch.openCase.id}`}>{batch.openCase.title}</Link>
+    </p>
+  );
+}
 
 function CheckCell({ check, batch }: { check: BatchCheckSummary | null; batch: BatchView }) {
   if (!check) return <span className="text-loam-soft">{missingWeights(batch)}</span>;
@@ -153,6 +168,7 @@ export function BatchShelfTable({ batches }: { batches: BatchView[] }) {
               <p className="text-loam-soft">
                 {batch.stage} · {age === 0 ? 'made today' : `made ${formatMadeOn(batch.madeOn, 'short')} · ${ageText(age)} old`}
               </p>
+              <OpenCaseLine batch={batch} />
               <div className="mt-2">
                 <CheckCell check={check} batch={batch} />
               </div>
