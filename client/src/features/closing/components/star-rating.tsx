@@ -1,7 +1,8 @@
 import { useId } from 'react';
 import { cx } from '../../../components/ui/cx';
 
-const WORDS = ['', 'not helpful', 'a little helpful', 'helpful', 'very helpful', 'it saved the batch'];
+// What the stars say of the advice, whatever became of the batch (a lost batch can have had the right advice).
+const WORDS = ['', 'not helpful', 'a little helpful', 'helpful', 'very helpful', 'just what I needed'];
 
 /** Five radio buttons drawn as stars; the words say what each means. */
 export function StarRating({
