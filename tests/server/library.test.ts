@@ -129,6 +129,15 @@ describe('GET /api/library search', () => {
     expect(res.body.readAs.bubbels).toEqual(expect.arrayContaining(['bubbles']));
   });
 
+  test('when a visitor swaps two letters of a short word ("crsuty", only 0.27 like "crusty" by trigrams), then it is read as the known word and the crusty note is found', async () => {
+    const [{ like }] = await getSequelize().query<{ like: number }>(`SELECT similarity('crsuty', 'crusty') AS like`, { type: QueryTypes.SELECT });
+    expect(like).toBeLessThan(0.3);
+    const res = await agent(t.app).get('/api/library').query({ q: 'crsuty', kind: 'note', pageSize: 50 });
+    expect(res.status).toBe(200);
+    expect(res.body.readAs.crsuty).toContain('crusty');
+    expect(res.body.items.map((i: { slug: string }) => i.slug)).toContain(unrelated);
+  });
+
   test('when guides and notes are searched together with a misspelt word, then guides about it are found too', async () => {
     const res = await agent(t.app).get('/api/library').query({ q: 'bubling' });
     expect(res.status).toBe(200);

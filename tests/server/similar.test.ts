@@ -88,6 +88,16 @@ describe('batches like this', () => {
     expect(item.reasons.join(' ')).toMatch(/Mentions .*cinnamon/);
   });
 
+  test('when two letters of a short word are swapped ("cluody", only 0.27 like "cloudy" by trigrams), then it is read as the known word', async () => {
+    const { browser, user } = await signedIn(t.app, 'mentor');
+    const word = nonce();
+    const target = await createResolvedCase(user.id, { stage: 'FPJ', symptoms: ['smell-sour'], title: `Nettle ${word} brew went cloudy`, description: 'Cloudy and sour by the third day.' });
+    const res = await browser.post('/api/cases/similar').set(JSON_HEADERS).send({ stage: 'other', description: `${word} brew gone cluody`, limit: 10 });
+    expect(res.status).toBe(200);
+    expect(ids(res.body)[0]).toBe(target);
+    expect(res.body.terms).toEqual(expect.arrayContaining([{ word: 'cluody', term: 'cloudy' }]));
+  });
+
   test('when the draft and a resolved case share everyday fillers ("lots of", "quite a bit"), then only the telling words are given as the reason', async () => {
     const { browser, user } = await signedIn(t.app, 'mentor');
     const word = nonce();

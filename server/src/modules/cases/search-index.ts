@@ -133,3 +133,16 @@ export async function indexResolvedCase(caseId: number, transaction?: Transactio
   await indexResolvedCases([caseId], transaction);
   return true;
 }
+
+/** The words one slip of the finger away from `word`: two neighbouring letters swapped
+ * ("laeve" → "leave") or one letter dropped ("cloudyy" → "cloudy"). Trigram likeness misses the
+ * swaps in short words ("cluody" is only 0.27 like "cloudy"), which fuse.js still matches. */
+export function slipsOf(word: string): string[] {
+  const out = new Set<string>();
+  for (let i = 0; i + 1 < word.length; i++) {
+    if (word[i] !== word[i + 1]) out.add(word.slice(0, i) + word[i + 1] + word[i] + word.slice(i + 2));
+  }
+  if (word.length > 3) for (let i = 0; i < word.length; i++) out.add(word.slice(0, i) + word.slice(i + 1));
+  out.delete(word);
+  return [...out];
+}

@@ -5,6 +5,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import type { LibraryKind, LibraryListItem } from '../../../shared/library-schemas';
 import type { OutcomeCounts } from '../../../shared/remedy-records';
 import { getSequelize } from '../../db/sequelize';
+import { slipsOf } from '../cases/search-index';
 import { RANKED_FIELDS } from './library-ranking';
 
 /** A list item as stored: the id, and the date as PostgreSQL gives it. */
@@ -100,9 +101,11 @@ export const libraryRepository = {
     minSimilarity: number,
   ): Promise<Array<{ word: string; term: string; similarity: number; uses: number }>> {
     if (!words.length) return [];
+    // Words are a–z only (queryWords), so a comma can join each one's slips.
+    const slips = words.map((word) => slipsOf(word).join(','));
     return getSequelize().query(
       `SELECT w.word, s.term, s.similarity, s.uses
-         FROM unnest($1::text[]) AS w(word)
+         FROM unnest($1::text[], $5::text[]) AS w(word, slips)
          CROSS JOIN LATERAL (
            (SELECT t.term, t.uses, similarity(t.term, w.word) AS similarity
               FROM search_terms t
@@ -115,9 +118,15 @@ export const libraryRepository = {
              WHERE t.term LIKE '%' || w.word || '%' AND t.term <> w.word
              ORDER BY t.uses DESC, t.term
              LIMIT $4)
+           UNION
+           (SELECT t.term, t.uses, similarity(t.term, w.word) AS similarity
+              FROM search_terms t
+             WHERE t.term = ANY(string_to_array(w.slips, ','))
+             ORDER BY t.uses DESC, t.term
+             LIMIT $2)
          ) s
         ORDER BY w.word, s.similarity DESC, s.uses DESC`,
-      { bind: [[...words], perWord, minSimilarity, containingPerWord], type: QueryTypes.SELECT },
+      { bind: [[...words], perWord, minSimilarity, containingPerWord, slips], type: QueryTypes.SELECT },
     );
   },
 

@@ -9,7 +9,9 @@
 //    also read as "bubbles", "soure" as "sour". The same table and word-cutting as "batches like
 //    this" (cases/similar.service.ts), but not its single best correction at ≥ 0.4: "bubbels" is
 //    only 0.33 like "bubbles", and since the readings are OR-ed and fuse.js ranks afterwards,
-//    a looser, wider reading costs little here.
+//    a looser, wider reading costs little here. A word is also read as any known word one slip
+//    away (two neighbouring letters swapped or one dropped, slipsOf): "cluody" is only 0.27 like
+//    "cloudy" by trigrams, yet fuse.js matches the two.
 // 3. PostgreSQL narrows to at most LIBRARY_TUNING.candidates entries, with the stage/symptom/kind
 //    filters applied, on the fields fuse.js ranks on (title, summary, labels). Rare words first
 //    (as many as together appear in about LIBRARY_TUNING.rowBudget entries): every entry holding
