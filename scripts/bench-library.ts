@@ -375,14 +375,21 @@ async function main(): Promise<number> {
       // Latency, through the real service (one warm-up round first).
       for (const q of set) await searchLibrary(request(q));
       const times: number[] = [];
+      const slowest = new Map<Query, number>();
       for (let round = 0; round < ROUNDS; round++) {
         for (const q of set) {
           const started = performance.now();
           await searchLibrary(request(q));
-          times.push(performance.now() - started);
+          const took = performance.now() - started;
+          times.push(took);
+          slowest.set(q, Math.max(slowest.get(q) ?? 0, took));
         }
       }
       times.sort((a, b) => a - b);
+      if (process.env.BENCH_VERBOSE) {
+        const worst = [...slowest].sort((a, b) => b[1] - a[1]).slice(0, 8);
+        console.log(`  slowest queries (worst of ${ROUNDS} rounds): ${worst.map(([q, took]) => `${JSON.stringify(q.q)}${q.stage ? ` ${q.stage}` : ''}${q.kind ? ` ${q.kind}` : ''} ${took.toFixed(0)} ms`).join(', ')}`);
+      }
 
       // Where the time goes, and our top 5 by fuse.js score alone.
       const steps = { sql: [] as number[], fuse: [] as number[], candidates: [] as number[] };
