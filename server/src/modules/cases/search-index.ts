@@ -146,3 +146,9 @@ export function slipsOf(word: string): string[] {
   out.delete(word);
   return [...out];
 }
+
+/** Each word's slips as one comma-joined string, for `string_to_array(…, ',')` in SQL beside
+ * `unnest` of the words (words from queryWords are a–z only, so a comma never occurs in one). */
+export function slipLists(words: readonly string[]): string[] {
+  return words.map((word) => slipsOf(word).join(','));
+}

@@ -9,8 +9,9 @@
 //             cases using the word). A word the resolved cases use is credited 1 when the case
 //             has it (full-text match, so "bubbles" meets "bubbling"). A word no case uses is
 //             taken as misspelt: its nearest known words by trigram similarity, and the known
-//             words one slip away (two letters swapped or one dropped), are the shortlist, fuse.js scores each against what was typed, and the case is credited
-//             with the best-scoring shortlisted word it has (1 − fuse score / threshold).
+//             words one slip away (two letters swapped or one dropped), are the shortlist;
+//             fuse.js scores each against what was typed, and the case is credited with the
+//             best-scoring shortlisted word it has (1 − fuse score / threshold).
 //   symptoms  Jaccard overlap of the symptom sets (shared / all named by either).
 //   stage     1 for the same stage, 0.5 for a related one (IMO1–IMO4; FPJ and FFJ; WCA and WCS).
 //   ratio     sugar : culture closeness, 1 − |Δ| / 0.6, floored at 0; 0 when either lacks it.
@@ -38,7 +39,7 @@ import { SYMPTOM_BIT_ORDER_0101 } from '../../db/migrations/0101-similar-structu
 import { preparedQuery } from './prepared-query';
 import type { SimilarAnswer, SimilarCaseItem, SimilarNoteItem } from '../../../shared/case-schemas';
 import { SYMPTOMS, labelOf, type StageId, type SymptomId } from '../../../shared/vocabulary';
-import { queryWords, slipsOf } from './search-index';
+import { queryWords, slipLists } from './search-index';
 
 export const SIMILAR_WEIGHTS = { text: 0.45, symptoms: 0.25, stage: 0.2, ratio: 0.1 } as const;
 
@@ -225,8 +226,7 @@ export async function readUnits(text: string, resolved: number): Promise<Unit[]>
   const words = queryWords(text).slice(0, 40);
   if (words.length === 0) return [];
   // Known words are looked up exactly; only unknown ones go to the trigram index, and to the
-  // known words one slip away (slipsOf: "cluody" is only 0.27 like "cloudy" by trigrams). Words
-  // are a–z only, so a comma can join each one's slips.
+  // known words one slip away (slipsOf: "cluody" is only 0.27 like "cloudy" by trigrams).
   const rows = await preparedQuery<{ word: string; term: string; uses: number; exact: boolean }>(
     `SELECT q.word, s.term, s.uses, s.exact
        FROM unnest($words::text[], $slips::text[]) WITH ORDINALITY AS q(word, slips, ord)
@@ -242,7 +242,7 @@ export async function readUnits(text: string, resolved: number): Promise<Unit[]>
            ORDER BY uses DESC, term LIMIT $shortlist)
        ) s
       ORDER BY q.ord`,
-    { words, slips: words.map((word) => slipsOf(word).join(',')), shortlist: SIMILAR_TUNING.shortlist },
+    { words, slips: slipLists(words), shortlist: SIMILAR_TUNING.shortlist },
   );
   const byWord = new Map<string, { term: string; uses: number; exact: boolean }[]>();
   for (const row of rows) byWord.set(row.word, [...(byWord.get(row.word) ?? []), { ...row, uses: Number(row.uses) }]);

@@ -5,7 +5,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import type { LibraryKind, LibraryListItem } from '../../../shared/library-schemas';
 import type { OutcomeCounts } from '../../../shared/remedy-records';
 import { getSequelize } from '../../db/sequelize';
-import { slipsOf } from '../cases/search-index';
+import { slipLists } from '../cases/search-index';
 import { RANKED_FIELDS } from './library-ranking';
 
 /** A list item as stored: the id, and the date as PostgreSQL gives it. */
@@ -101,8 +101,6 @@ export const libraryRepository = {
     minSimilarity: number,
   ): Promise<Array<{ word: string; term: string; similarity: number; uses: number }>> {
     if (!words.length) return [];
-    // Words are a–z only (queryWords), so a comma can join each one's slips.
-    const slips = words.map((word) => slipsOf(word).join(','));
     return getSequelize().query(
       `SELECT w.word, s.term, s.similarity, s.uses
          FROM unnest($1::text[], $5::text[]) AS w(word, slips)
@@ -126,7 +124,7 @@ export const libraryRepository = {
              LIMIT $2)
          ) s
         ORDER BY w.word, s.similarity DESC, s.uses DESC`,
-      { bind: [[...words], perWord, minSimilarity, containingPerWord, slips], type: QueryTypes.SELECT },
+      { bind: [[...words], perWord, minSimilarity, containingPerWord, slipLists(words)], type: QueryTypes.SELECT },
     );
   },
 
