@@ -22,6 +22,8 @@ export const STOP_WORDS: readonly string[] = [
   // fillers of everyday speech: "lots of liquid", "quite a bit", "something odd"
   'lot', 'lots', 'bit', 'quite', 'really', 'rather', 'pretty', 'even', 'still', 'though', 'maybe', 'thing', 'things',
   'something', 'anything',
+  // when it was noticed, which every draft says and no cause shares: "since yesterday", "worse today"
+  'yesterday', 'today', 'tonight', 'tomorrow', 'since', 'ago',
 ];
 
 const STOP = new Set(STOP_WORDS);
