@@ -39,6 +39,7 @@ import { runSearchBench, type SearchFigures } from './bench/search-benches';
 import { seedBench, type BenchData } from './bench/seed';
 import { runThreadLoad, type ThreadLoadResult } from './bench/socket-load';
 import { clusterCpu, processCpu, selfCpu, type CpuProbe } from './bench/cpu-usage';
+import { measureCommitFloor } from './bench/commit-floor';
 import { percentiles } from './bench/stats';
 import { int, ms, renderTable, verdict, type Row } from './bench/table';
 
@@ -383,6 +384,8 @@ async function main(): Promise<number> {
           const ours = await load([app.url], { Sporewell: () => processCpu(appChild.proc.pid!), PostgreSQL: () => clusterCpu(cluster.dataDir), clients: selfCpu });
           say(`live thread: Sporewell at ${THREAD.lightRatePerSecond} messages/s…`);
           const oursLight = await light([app.url]);
+          say('live thread: one committed one-row INSERT, the floor of any stored post…');
+          const floor = await measureCommitFloor(databaseUrl, { count: 1000, pacedRatePerSecond: THREAD.lightRatePerSecond, pacedCount: THREAD.lightRatePerSecond * THREAD.lightSeconds });
           const limit = BUDGET.threadFactor * bare.latency.p95;
           // A send that never got its "stored" ack fails the row too, even with nothing lost.
           const complete = (r: ThreadLoadResult) => r.sockets === rooms.length * 2 && r.joinFailures === 0 && r.acked === r.sent;
@@ -406,6 +409,12 @@ async function main(): Promise<number> {
               measured: `${ms(oursLight.latency.p95)} (p50 ${ms(oursLight.latency.p50)}) vs bare ${ms(bareLight.latency.p95)}; lost ${oursLight.lost}, dup ${oursLight.duplicated}${unacked(oursLight)}`,
               budget: '—',
               verdict: oursLight.lost || oursLight.duplicated || !complete(oursLight) ? 'MISSES' : '',
+            },
+            {
+              work: 'one committed one-row INSERT, same database (the least a stored post costs): p50 / p95',
+              measured: `${ms(floor.backToBack.p50)} / ${ms(floor.backToBack.p95)} back to back; ${ms(floor.paced.p50)} / ${ms(floor.paced.p95)} at ${floor.pacedRatePerSecond}/s`,
+              budget: `2 × bare leaves ${ms(Math.max(0, limit - bare.latency.p95))} to store in`,
+              verdict: '',
             },
           );
           notes.push(threadNote('bare relay', bare, null), threadNote('Sporewell, one process', ours, await storedMessages(databaseUrl, ours.clientIdPrefix)));
