@@ -96,14 +96,19 @@ export default function MentorProfileRoute() {
           <ul className="flex flex-col gap-3">
             {mentor.recentNotes.map((note) => (
               <li key={note.slug} className="flex flex-col gap-2 rounded-soft border border-line bg-rice p-4">
-                <div className="flex flex-wrap items-center gap-2">
-                  {note.outcome && <OutcomeBadge outcome={note.outcome} className="text-sm" />}
-                  {note.remedy && <span className="text-loam-soft">{labelOf(REMEDIES, note.remedy)}</span>}
-                </div>
                 <Link to={`/library/${note.slug}`} className="text-lg font-extrabold">
                   {note.title}
                 </Link>
-                <EntryTags stages={note.stages} symptoms={[]} />
+                {note.remedy && (
+                  <p className="text-loam-soft">
+                    <span className="font-bold text-loam">What was done: </span>
+                    {labelOf(REMEDIES, note.remedy)}
+                  </p>
+                )}
+                <div className="flex flex-wrap items-center gap-2">
+                  {note.outcome && <OutcomeBadge outcome={note.outcome} className="text-sm" />}
+                  <EntryTags stages={note.stages} symptoms={[]} />
+                </div>
               </li>
             ))}
           </ul>
