@@ -65,5 +65,26 @@ describe('mentor profile', () => {
       await page.waitForURL(`**/library/${first.slug}`, WAIT);
       await expect.poll(() => page.getByRole('heading', { level: 1, name: first.title }).isVisible(), WAIT).toBe(true);
     });
+
+    test(`when a mentor on a ${name} looks for their own track record, then the rounds page links it${name === 'phone' ? ', and so does the menu' : ''}`, async () => {
+      const page = await chromium.newPage(device);
+      await signIn(page, 'mentor@example.test');
+      await page.waitForURL((url) => url.pathname !== '/sign-in', WAIT);
+      const me = await json<{ id: number; displayName: string }>(page, '/api/auth/me');
+      const mine = async () => {
+        await page.waitForURL(`**/mentors/${me.id}`, WAIT);
+        await expect.poll(() => page.getByRole('heading', { level: 1, name: me.displayName }).isVisible(), WAIT).toBe(true);
+        await expect.poll(() => page.getByRole('heading', { name: 'Track record' }).isVisible(), WAIT).toBe(true);
+      };
+      await page.goto('/rounds');
+      await page.getByRole('link', { name: 'Your track record', exact: true }).click();
+      await mine();
+      if (name === 'phone') {
+        await page.goto('/library');
+        await page.getByRole('button', { name: 'Menu', exact: true }).click();
+        await page.getByRole('link', { name: 'your track record', exact: true }).click();
+        await mine();
+      }
+    });
   }
 });

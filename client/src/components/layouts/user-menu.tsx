@@ -32,7 +32,16 @@ export function UserMenu({ user, layout }: { user: PublicUser | null; layout: 'b
       <p className="leading-tight">
         <span className="sr-only">Signed in as </span>
         <span className="block max-w-48 truncate font-extrabold">{user.displayName}</span>
-        <span className="block text-base text-loam-soft">{ROLE_LABELS[user.role]}</span>
+        <span className="block text-base text-loam-soft">
+          {ROLE_LABELS[user.role]}
+          {/* In the bar at a desk there is no room beside a full menu; the rounds page links it there. */}
+          {stacked && (user.role === 'mentor' || user.role === 'steward') && (
+            <>
+              {' · '}
+              <Link to={`/mentors/${user.id}`}>your track record</Link>
+            </>
+          )}
+        </span>
       </p>
       <Button variant="secondary" onClick={() => logout.mutate()} disabled={logout.isPending}>
         {logout.isPending ? 'Signing out…' : 'Sign out'}

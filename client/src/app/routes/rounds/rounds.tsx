@@ -69,7 +69,16 @@ export default function RoundsRoute() {
   return (
     <ContentLayout
       title="Rounds"
-      lead="Cases that need a mentor, the most urgent first. Claim one to take it on; the grower sees who is helping."
+      lead={
+        <>
+          <p>Cases that need a mentor, the most urgent first. Claim one to take it on; the grower sees who is helping.</p>
+          {me && (
+            <p className="mt-2 text-base">
+              <Link to={`/mentors/${me.id}`}>Your track record</Link>: the cases you helped, how soon you answered and how many batches came back.
+            </p>
+          )}
+        </>
+      }
     >
       <div className="flex flex-col gap-5">
         <RoundsFiltersForm filters={filters} onChange={change} />
