@@ -94,7 +94,9 @@ function RowActions({ batch }: { batch: BatchView }) {
   return (
     <span className="flex flex-wrap gap-x-3 gap-y-1">
       <Link to={`/cases/new?batch=${batch.id}`} className="inline-flex min-h-11 items-center font-bold whitespace-nowrap">
-        Open a case<span className="sr-only"> about {batch.label}</span>
+        {/* With a case still open (its line is above), a second one is a choice, not the way back. */}
+        {batch.openCase ? 'Open another case' : 'Open a case'}
+        <span className="sr-only"> about {batch.label}</span>
       </Link>
       <Link to={`/batches/${batch.id}/label`} className="inline-flex min-h-11 items-center whitespace-nowrap">
         Jar label<span className="sr-only"> for {batch.label}</span>
