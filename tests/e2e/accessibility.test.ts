@@ -184,6 +184,8 @@ const PEOPLE: { who: Who; screens: () => Screen[] }[] = [
       { path: `/batches/${batchId}/edit` },
       { path: `/batches/${batchId}/label` },
       { path: '/cases/new', then: fillCaseForm },
+      // about a batch whose case is still open: the notice leading back to it
+      { path: `/cases/new?batch=${batchId}` },
       { path: `/cases/${openCaseId}` },
       { path: `/cases/${openCaseId}`, then: openPhoto },
       { path: `/cases/${watchingCaseId}` },

@@ -1,5 +1,6 @@
 // The batch shelf as the demo grower sees it: a batch with a case still open leads back to that
-// case, and opening a second one is offered as such; a batch without one offers to open a case.
+// case, and opening a second one is offered as such (its form says so again and links the case);
+// a batch without one offers to open a case.
 // Read-only on the demo community.
 import { describe, expect, test } from 'vitest';
 import { DESKTOP, PHONE, signIn, useBrowser } from './browser';
@@ -41,6 +42,20 @@ describe('batch shelf', () => {
       await page.getByRole('link', { name: withCase!.openCase!.title, exact: true }).first().click();
       await page.waitForURL(`**/cases/${withCase!.openCase!.id}`, WAIT);
       await expect.poll(() => page.getByRole('heading', { level: 1, name: withCase!.openCase!.title }).isVisible(), WAIT).toBe(true);
+
+      // Choosing to open another: the form says a case is open and leads back to it as well.
+      await page.goBack();
+      await another.click();
+      await page.waitForURL(`**/cases/new?batch=${withCase!.id}`, WAIT);
+      const notice = page.getByRole('region', { name: 'This batch already has a case open' });
+      await expect.poll(() => notice.isVisible(), WAIT).toBe(true);
+      await notice.getByRole('link', { name: withCase!.openCase!.title, exact: true }).click();
+      await page.waitForURL(`**/cases/${withCase!.openCase!.id}`, WAIT);
+
+      // A batch without one: no notice on its form.
+      await page.goto(`/cases/new?batch=${without!.id}`);
+      await expect.poll(() => page.getByText(`About your batch ${without!.label}`).isVisible(), WAIT).toBe(true);
+      expect(await page.getByRole('region', { name: /already has/ }).count()).toBe(0);
     });
   }
 });

@@ -1,6 +1,8 @@
 import { lazy } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { Link, useNavigate, useSearchParams } from 'react-router';
+import type { BatchView } from '@shared/case-schemas';
+import { OPEN_STATUSES, STATUS_LABELS } from '@shared/case-status';
 import { ContentLayout } from '../../../components/layouts/content-layout';
 import { AfterFirstPaint } from '../../../components/ui/after-first-paint';
 import { Spinner } from '../../../components/ui/spinner';
@@ -29,6 +31,7 @@ export default function OpenCaseRoute() {
         <Spinner label="Fetching your batch…" />
       ) : (
         <>
+          {batch.data && <StillOpen batch={batch.data} />}
           {batch.data ? (
             <p className="mb-6 rounded-soft border border-line bg-rice-deep px-4 py-3">
               About your batch <Link to={`/batches/${batch.data.id}`} className="font-bold">{batch.data.label}</Link>, made{' '}
@@ -80,5 +83,34 @@ function BatchChooser({ onChoose }: { onChoose: (id: number) => void }) {
         ))}
       </select>
     </div>
+  );
+}
+
+/**
+ * A case about this batch is still being worked on: the mentors already have its story, so new
+ * signs usually belong in that thread. Opening another stays possible (something new went wrong).
+ */
+function StillOpen({ batch }: { batch: BatchView }) {
+  const open = (batch.cases ?? []).filter((c) => OPEN_STATUSES.includes(c.status));
+  if (open.length === 0) return null;
+  return (
+    <section aria-labelledby="still-open-heading" className="mb-6 rounded-soft border-2 border-clay bg-clay-mist px-4 py-3">
+      <h2 id="still-open-heading" className="font-extrabold text-clay-deep">
+        {open.length === 1 ? 'This batch already has a case open' : `This batch already has ${open.length} cases open`}
+      </h2>
+      <ul className="mt-1 flex flex-col gap-1">
+        {open.map((c) => (
+          <li key={c.id}>
+            <Link to={`/cases/${c.id}`} className="font-bold">
+              {c.title}
+            </Link>{' '}
+            <span className="text-loam-soft">({STATUS_LABELS[c.status].toLowerCase()})</span>
+          </li>
+        ))}
+      </ul>
+      <p className="mt-2 text-base">
+        New signs are best told there, where the mentor has the whole story. Open another case below only if something else has gone wrong.
+      </p>
+    </section>
   );
 }
