@@ -115,7 +115,7 @@ describe('a grower becomes a mentor through the steward desk', () => {
     await stewardContext.close();
   });
 
-  test('when the demo steward opens the desk on a phone, then every tab is reachable and the health charts have their text', async () => {
+  test('when the demo steward opens the desk on a phone, then every tab is reachable, the health charts have their text and a mentor in People links their track record', async () => {
     const context = await newContext(browser, PHONE);
     const page = await context.newPage();
     await signIn(page, 'steward@example.test');
@@ -134,6 +134,10 @@ describe('a grower becomes a mentor through the steward desk', () => {
     await page.getByText('mentor@example.test').waitFor();
     await shot(page, 'steward-desk-people-phone');
     expect(await axeProblems(page)).toEqual([]);
+    // A mentor's line leads to their track record.
+    await page.getByRole('link', { name: 'track record of Marta Veldhoen', exact: true }).click();
+    await expect.poll(() => page.getByRole('heading', { level: 1, name: 'Marta Veldhoen' }).isVisible(), SIGNED_IN_WAIT).toBe(true);
+    await expect.poll(() => page.getByRole('heading', { name: 'Track record' }).isVisible(), SIGNED_IN_WAIT).toBe(true);
     await context.close();
   });
 });

@@ -1,4 +1,5 @@
 import { useDeferredValue, useEffect, useState } from 'react';
+import { Link } from 'react-router';
 import { ROLES, type Role } from '@shared/case-status';
 import type { StewardUser } from '@shared/steward-schemas';
 import { Alert } from '../../../components/ui/alert';
@@ -170,6 +171,14 @@ function PersonRow({ user, isMe, onRole, onDisabled }: { user: StewardUser; isMe
         <p className="truncate text-loam-soft">{user.email}</p>
         <p className="text-sm text-loam-soft">
           {ROLE_LABELS[user.role]} · joined {formatDate(user.createdAt)}
+          {(user.role === 'mentor' || user.role === 'steward') && !user.disabled && (
+            <>
+              {' · '}
+              <Link to={`/mentors/${user.id}`}>
+                track record<span className="sr-only"> of {user.displayName}</span>
+              </Link>
+            </>
+          )}
         </p>
       </div>
       <div className="flex flex-wrap items-end gap-3">
