@@ -117,20 +117,21 @@ describe('batches like this', () => {
     expect(queryWords(fillers)).toEqual(['froth', 'odd']);
   });
 
-  test('when the draft says when it was noticed ("since yesterday", "worse today"), then those time words are not given as the reason', async () => {
+  test('when the draft says when and how it was noticed ("since yesterday", "it started to look"), then those words are not given as the reason', async () => {
     const { browser, user } = await signedIn(t.app, 'mentor');
     const word = nonce();
-    const target = await createResolvedCase(user.id, { stage: 'FPJ', symptoms: ['smell-sour'], description: `The ${word} crock smells sour since yesterday.` });
+    const target = await createResolvedCase(user.id, { stage: 'FPJ', symptoms: ['smell-sour'], description: `The ${word} crock smells sour since yesterday and started to look odd.` });
     const res = await browser
       .post('/api/cases/similar')
       .set(JSON_HEADERS)
-      .send({ stage: 'FPJ', description: `Since yesterday my ${word} crock smells sour, worse today than two days ago.`, limit: 10 });
+      .send({ stage: 'FPJ', description: `Since yesterday my ${word} crock smells sour and it started to look worse today than two days ago.`, limit: 10 });
     expect(res.status).toBe(200);
     const item = res.body.items.find((i: { id: number }) => i.id === target);
     const mentions = item.reasons.find((r: string) => r.startsWith('Mentions '));
     expect(mentions).toMatch(new RegExp(word));
-    expect(mentions).not.toMatch(/\b(since|yesterday|today|ago)\b/);
+    expect(mentions).not.toMatch(/\b(since|yesterday|today|ago|started|look)\b/);
     expect(queryWords('Since yesterday, worse today than two days ago; tonight or tomorrow')).toEqual(['worse', 'two', 'days']);
+    expect(queryWords('I noticed it started to froth; it looks and seems sour, as it seemed to look')).toEqual(['froth', 'sour']);
   });
 
   test('when a case asks for batches like it, then it never lists itself, nor open cases; the grower sees only published ones, as field notes', async () => {

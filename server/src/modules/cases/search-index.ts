@@ -24,6 +24,8 @@ export const STOP_WORDS: readonly string[] = [
   'something', 'anything',
   // when it was noticed, which every draft says and no cause shares: "since yesterday", "worse today"
   'yesterday', 'today', 'tonight', 'tomorrow', 'since', 'ago',
+  // how a change is told rather than what it is: "it started to", "I noticed", "it looks", "seems"
+  'started', 'noticed', 'looks', 'look', 'seems', 'seemed',
 ];
 
 const STOP = new Set(STOP_WORDS);
