@@ -52,6 +52,12 @@ describe('batch shelf', () => {
       await notice.getByRole('link', { name: withCase!.openCase!.title, exact: true }).click();
       await page.waitForURL(`**/cases/${withCase!.openCase!.id}`, WAIT);
 
+      // The batch's own page says the same.
+      await page.goto(`/batches/${withCase!.id}`);
+      await expect.poll(() => page.getByRole('link', { name: 'Open another case about this batch', exact: true }).isVisible(), WAIT).toBe(true);
+      await page.goto(`/batches/${without!.id}`);
+      await expect.poll(() => page.getByRole('link', { name: 'Open a case about this batch', exact: true }).isVisible(), WAIT).toBe(true);
+
       // A batch without one: no notice on its form.
       await page.goto(`/cases/new?batch=${without!.id}`);
       await expect.poll(() => page.getByText(`About your batch ${without!.label}`).isVisible(), WAIT).toBe(true);

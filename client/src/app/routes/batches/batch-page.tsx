@@ -1,6 +1,6 @@
 import { Link } from 'react-router';
 import { SUGAR_TYPES } from '@shared/batch-check-model';
-import { STATUS_LABELS } from '@shared/case-status';
+import { OPEN_STATUSES, STATUS_LABELS } from '@shared/case-status';
 import { ContentLayout } from '../../../components/layouts/content-layout';
 import { buttonClasses } from '../../../components/ui/button';
 import { BatchCheckPanel } from '../../../features/batch-check/components/batch-check-panel';
@@ -43,7 +43,7 @@ export default function BatchPageRoute() {
     <ContentLayout title={batch.label} lead={`${stageLabel(batch.stage)} · made ${formatMadeOn(batch.madeOn)}`}>
       <div className="flex flex-wrap gap-3">
         <Link to={`/cases/new?batch=${batch.id}`} className={buttonClasses('primary')}>
-          Open a case about this batch
+          {(batch.cases ?? []).some((c) => OPEN_STATUSES.includes(c.status)) ? 'Open another case about this batch' : 'Open a case about this batch'}
         </Link>
         <Link to={`/batches/${batch.id}/label`} className={buttonClasses('secondary')}>
           Print a jar label
