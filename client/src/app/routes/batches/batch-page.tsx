@@ -1,12 +1,13 @@
 import { Link } from 'react-router';
 import { SUGAR_TYPES } from '@shared/batch-check-model';
-import { OPEN_STATUSES, STATUS_LABELS } from '@shared/case-status';
+import { STATUS_LABELS } from '@shared/case-status';
 import { ContentLayout } from '../../../components/layouts/content-layout';
 import { buttonClasses } from '../../../components/ui/button';
 import { BatchCheckPanel } from '../../../features/batch-check/components/batch-check-panel';
 import { liveBatchCheck } from '../../../features/batch-check/hooks/use-live-batch-check';
 import { batchRouteLoader, useRouteBatch } from '../../../features/batches/api/get-batch';
 import { ageText, formatMadeOn, stageLabel } from '../../../features/batches/lib/batch-format';
+import { openCasesOf } from '../../../features/batches/lib/open-cases';
 import { dayShortMonth } from '../../../lib/english-dates';
 
 export const clientLoader = batchRouteLoader;
@@ -43,7 +44,7 @@ export default function BatchPageRoute() {
     <ContentLayout title={batch.label} lead={`${stageLabel(batch.stage)} · made ${formatMadeOn(batch.madeOn)}`}>
       <div className="flex flex-wrap gap-3">
         <Link to={`/cases/new?batch=${batch.id}`} className={buttonClasses('primary')}>
-          {(batch.cases ?? []).some((c) => OPEN_STATUSES.includes(c.status)) ? 'Open another case about this batch' : 'Open a case about this batch'}
+          {openCasesOf(batch).length > 0 ? 'Open another case about this batch' : 'Open a case about this batch'}
         </Link>
         <Link to={`/batches/${batch.id}/label`} className={buttonClasses('secondary')}>
           Print a jar label

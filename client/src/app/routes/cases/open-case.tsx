@@ -2,13 +2,14 @@ import { lazy } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { Link, useNavigate, useSearchParams } from 'react-router';
 import type { BatchView } from '@shared/case-schemas';
-import { OPEN_STATUSES, STATUS_LABELS } from '@shared/case-status';
+import { STATUS_LABELS } from '@shared/case-status';
 import { ContentLayout } from '../../../components/layouts/content-layout';
 import { AfterFirstPaint } from '../../../components/ui/after-first-paint';
 import { Spinner } from '../../../components/ui/spinner';
 import { batchQueryOptions } from '../../../features/batches/api/get-batch';
 import { useBatches } from '../../../features/batches/api/get-batches';
 import { formatMadeOn } from '../../../features/batches/lib/batch-format';
+import { openCasesOf } from '../../../features/batches/lib/open-cases';
 import { batchParamOf } from './open-case.loader';
 
 // The form is a chunk of its own (with the form library, the schemas and the live check), fetched
@@ -91,7 +92,7 @@ function BatchChooser({ onChoose }: { onChoose: (id: number) => void }) {
  * signs usually belong in that thread. Opening another stays possible (something new went wrong).
  */
 function StillOpen({ batch }: { batch: BatchView }) {
-  const open = (batch.cases ?? []).filter((c) => OPEN_STATUSES.includes(c.status));
+  const open = openCasesOf(batch);
   if (open.length === 0) return null;
   return (
     <section aria-labelledby="still-open-heading" className="mb-6 rounded-soft border-2 border-clay bg-clay-mist px-4 py-3">

@@ -57,17 +57,7 @@ export function CaseHeader({ detail, viewerId }: { detail: CaseDetail; viewerId:
         </div>
         <p className="text-loam-soft">
           Opened {dayMonthTime(new Date(detail.openedAt))} by {detail.grower.displayName}
-          {detail.mentor ? (
-            <>
-              {' '}
-              · with{' '}
-              <Link to={`/mentors/${detail.mentor.id}`}>
-                {detail.mentor.displayName}
-              </Link>
-            </>
-          ) : (
-            <> · waiting for a mentor</>
-          )}
+          {detail.mentor ? <> · with <Link to={`/mentors/${detail.mentor.id}`}>{detail.mentor.displayName}</Link></> : <> · waiting for a mentor</>}
         </p>
       </div>
 
