@@ -38,7 +38,8 @@ describe('the mail to a grower when a mentor replies', () => {
     const mails = await outboxFor(grower.user.email, 'mentor_reply');
     expect(mails).toHaveLength(1);
     expect(mails[0].subject).toBe('Bea Hollow replied about “IMO2: putrid smell”');
-    expect(mails[0].body_text).toContain(`${t.config.publicUrl}/cases/${kase.id}`);
+    // The link opens the case at its conversation, below the case and the batches like it.
+    expect(mails[0].body_text).toContain(`${t.config.publicUrl}/cases/${kase.id}#conversation\n`);
     expect(mails[0].dedupe_key).toMatch(new RegExp(`^reply:${kase.id}:\\d+$`));
     expect(t.mailPokes).toBe(pokes + 1);
   });

@@ -7,6 +7,7 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import type { ThreadMessage } from '../../../shared/socket-events';
 import { CATCH_UP_MAX } from '../../../shared/socket-events';
+import { conversationPath } from '../../../shared/case-links';
 import type { AppContext } from '../../context';
 import { getSequelize } from '../../db/sequelize';
 import { AppError, conflict, forbidden, notFound, unauthorized } from '../../lib/errors';
@@ -216,7 +217,7 @@ async function queueReplyMail(ctx: AppContext, row: ThreadCase, mentor: Express.
         `Hello ${grower.displayName},`,
         '',
         `${mentor.displayName} replied on your Sporewell case “${row.title}”. Read the thread and answer here:`,
-        `${ctx.config.publicUrl}/cases/${row.id}`,
+        `${ctx.config.publicUrl}${conversationPath(row.id)}`,
         '',
         `Sporewell sends at most one of these e-mails per case every ${REPLY_MAIL_WINDOW_MINUTES} minutes, and none while you have the case open.`,
         'Advice on Sporewell comes from community members, not from licensed professionals.',

@@ -11,6 +11,7 @@ import { RiskBadge } from '../../batch-check/components/risk-badge';
 import { ratioText } from '../../batch-check/components/ratio-text';
 import { WaterActivityScale } from '../../batch-check/components/water-activity-scale';
 import { ageText, formatMadeOn } from '../../batches/lib/batch-format';
+import { CONVERSATION_ANCHOR } from '@shared/case-links';
 
 const STATUS_TONES: Record<CaseStatus, string> = {
   awaiting_mentor: 'border-clay bg-clay-mist text-clay-deep',
@@ -59,6 +60,11 @@ export function CaseHeader({ detail, viewerId }: { detail: CaseDetail; viewerId:
           Opened {dayMonthTime(new Date(detail.openedAt))} by {detail.grower.displayName}
           {detail.mentor ? <> · with <Link to={`/mentors/${detail.mentor.id}`}>{detail.mentor.displayName}</Link></> : <> · waiting for a mentor</>}
         </p>
+        {viewerId !== null && (
+          <Link to={`#${CONVERSATION_ANCHOR}`} className="inline-flex min-h-11 items-center gap-1 self-start font-bold">
+            Go to the conversation <span aria-hidden="true" className="inline-block">↓</span>
+          </Link>
+        )}
       </div>
 
       <div className="grid gap-5 md:grid-cols-2">

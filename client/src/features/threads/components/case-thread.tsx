@@ -1,6 +1,7 @@
 // The live thread of a case, shown by the case page below the case header (PRODUCT.md screen 4).
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
+import { useLocation } from 'react-router';
 import type { PublicUser } from '@shared/auth-schemas';
 import type { CaseDetail } from '@shared/case-schemas';
 import type { ThreadMessage } from '@shared/socket-events';
@@ -14,6 +15,7 @@ import { useThread } from '../api/get-thread';
 import { useSendMessage } from '../api/send-message';
 import { useLiveThread } from '../hooks/use-live-thread';
 import { useThreadDelivery } from '../hooks/use-thread-delivery';
+import { CONVERSATION_ANCHOR } from '@shared/case-links';
 import { usePendingMessages, type PendingMessage } from '../lib/outbox';
 import { Composer } from './composer';
 import { ConnectionBanner } from './connection-banner';
@@ -64,8 +66,28 @@ function LiveThread({ caseId, detail, user, closeCaseAction }: { caseId: number;
 
   const audience = isGrower ? (detail.mentor?.displayName.split(' ')[0] ?? 'the mentors') : (detail.grower.displayName.split(' ')[0] ?? 'the grower');
 
+  // Opened at the conversation (#conversation, from the header's jump, the new-message list or
+  // a reply e-mail): once the messages are in, show the newest of them and the composer, and
+  // start the keyboard there. Again on every such link followed while the page is open.
+  const location = useLocation();
+  const sectionRef = useRef<HTMLElement>(null);
+  const loaded = !thread.isPending;
+  useEffect(() => {
+    const section = sectionRef.current;
+    if (!loaded || !section || location.hash !== `#${CONVERSATION_ANCHOR}`) return;
+    const smooth = !window.matchMedia('(prefers-reduced-motion: reduce)').matches;
+    section.scrollIntoView({ block: 'end', behavior: smooth ? 'smooth' : 'auto' });
+    section.focus({ preventScroll: true });
+  }, [loaded, location.key, location.hash]);
+
   return (
-    <section aria-labelledby={`thread-${caseId}-heading`} className="flex flex-col gap-4">
+    <section
+      ref={sectionRef}
+      id={CONVERSATION_ANCHOR}
+      tabIndex={-1}
+      aria-labelledby={`thread-${caseId}-heading`}
+      className="flex scroll-mb-4 flex-col gap-4 focus:outline-none"
+    >
       <div className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1">
         <h2 id={`thread-${caseId}-heading`} className="text-xl font-extrabold">
           Conversation

@@ -10,6 +10,7 @@ import { myCasesQueryOptions } from '../../cases/api/get-my-cases';
 import { useUnread } from '../api/get-unread';
 import { threadKeys } from '../api/thread-keys';
 import { useThreadDelivery } from '../hooks/use-thread-delivery';
+import { conversationPath } from '@shared/case-links';
 
 // One pair of listeners per socket however many badges there are (the header has one for wide
 // screens and one for phones), so a hint or a reconnect asks for the counts once, not twice.
@@ -96,7 +97,7 @@ export function UnreadBadge({ user, className }: { user: PublicUser | null; clas
           {byCase.map(([caseId, n]) => (
             <li key={caseId}>
               <Link
-                to={`/cases/${caseId}`}
+                to={conversationPath(caseId)}
                 onClick={() => setOpen(false)}
                 className="flex min-h-11 items-center justify-between gap-3 rounded-soft px-2 py-1 no-underline hover:bg-moss-mist"
               >

@@ -1,0 +1,100 @@
+// The conversation sits below the case, its photos and the batches like it, so on a phone it is
+// a long way down. A grower told of a mentor's reply (the header's "new" list, or the reply
+// e-mail's link, which carries #conversation) lands at the newest messages and the composer, and
+// the case header's "Go to the conversation" does the same from the top of the page. Each test
+// makes its own grower, mentor and case, so the demo cases stay as seeded.
+import crypto from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import type { Browser, Locator, Page } from 'playwright-core';
+import { baseUrl, DESKTOP, launch, newContext, PHONE, shot } from './browser';
+import { freshPerson, signInByApi } from './fresh-people';
+
+const LIVE = { timeout: 10_000 };
+
+let browser: Browser;
+
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+const JSON_CALL = () => ({ Origin: baseUrl(), 'Content-Type': 'application/json' });
+
+/** Whether the whole of an element is inside the window (not merely in the page). */
+async function whollyOnScreen(page: Page, target: Locator): Promise<boolean> {
+  const box = await target.boundingBox();
+  const size = page.viewportSize();
+  if (!box || !size) return false;
+  return box.y >= 0 && box.y + box.height <= size.height + 1;
+}
+
+describe('going to the conversation', () => {
+  for (const [name, device] of [
+    ['desktop', DESKTOP],
+    ['phone', PHONE],
+  ] as const) {
+    test(`when a grower on a ${name} follows a mentor's reply from the header's new-message list, then the page opens at the newest messages and the composer, and the case header's link goes back there`, async () => {
+      const grower = await freshPerson(browser, 'grower', 'Perrin');
+      const mentor = await freshPerson(browser, 'mentor', 'Odile');
+
+      // The grower's case and the mentor's reply, made through the API in a context of their own.
+      const setup = await newContext(browser);
+      await signInByApi(setup, grower.email, grower.password);
+      const opened = await setup.request.post('/api/cases', {
+        headers: JSON_CALL(),
+        data: {
+          title: `LAB serum gone ropey ${crypto.randomBytes(3).toString('hex')}`,
+          stage: 'LAB',
+          symptoms: ['slimy', 'smell-sour'],
+          description: 'The whey turned thick and stringy overnight and it smells sharper than last time.',
+        },
+      });
+      expect(opened.status()).toBe(201);
+      const { id, title } = (await opened.json()) as { id: number; title: string };
+      await setup.request.post('/api/auth/logout', { headers: JSON_CALL() });
+      await signInByApi(setup, mentor.email, mentor.password);
+      expect((await setup.request.post(`/api/cases/${id}/claim`, { headers: JSON_CALL() })).status()).toBe(200);
+      const reply = 'Stringy whey is common when it sat warm. Does it still smell sour rather than rotten?';
+      const posted = await setup.request.post(`/api/cases/${id}/messages`, {
+        headers: JSON_CALL(),
+        data: { clientId: crypto.randomBytes(16).toString('hex'), body: reply, kind: 'text' },
+      });
+      expect(posted.status()).toBe(201);
+      await setup.close();
+
+      const context = await newContext(browser, device);
+      await signInByApi(context, grower.email, grower.password);
+      const page = await context.newPage();
+      await page.goto('/batches');
+      const badge = page.getByRole('button', { name: /new message in your cases/ }).locator('visible=true');
+      await badge.click(LIVE);
+      await page.getByRole('link', { name: new RegExp(`^${title}\\s*1 new$`) }).click(LIVE);
+      await page.waitForURL(`**/cases/${id}#conversation`, LIVE);
+
+      const composer = page.getByRole('textbox', { name: `Write to ${mentor.displayName.split(' ')[0]}` });
+      const newest = page.getByRole('log', { name: 'Messages' }).getByText(reply, { exact: true });
+      await composer.waitFor(LIVE);
+      await expect.poll(() => whollyOnScreen(page, composer), LIVE).toBe(true);
+      await expect.poll(() => whollyOnScreen(page, newest), LIVE).toBe(true);
+      // Keyboard users start there too.
+      expect(await page.evaluate(() => document.activeElement?.id)).toBe('conversation');
+      await shot(page, `conversation-jump-${name}`);
+
+      // From the top of the page, the header's link goes down to the same place.
+      await page.evaluate(() => window.scrollTo({ top: 0 }));
+      await expect.poll(() => whollyOnScreen(page, composer)).toBe(false);
+      await page.getByRole('link', { name: 'Go to the conversation', exact: true }).click();
+      await expect.poll(() => whollyOnScreen(page, composer), LIVE).toBe(true);
+      await expect.poll(() => whollyOnScreen(page, newest), LIVE).toBe(true);
+
+      // Opened without the anchor (from the shelf, the rounds), the case starts at its top.
+      await page.goto(`/cases/${id}`);
+      await page.getByRole('heading', { level: 1, name: title }).waitFor(LIVE);
+      await composer.waitFor(LIVE);
+      expect(await page.evaluate(() => window.scrollY)).toBe(0);
+      await context.close();
+    });
+  }
+});
