@@ -14,6 +14,7 @@ import {
   type BarShapeProps,
 } from 'recharts';
 import type { MentorLoadRow } from '@shared/steward-schemas';
+import { busiestText } from '../lib/load-words';
 import type { OpenByUrgency, RecoveryRate, WeekReplyTimes, WeekStageCounts } from '@shared/metrics';
 import { labelOf, REMEDIES, STAGE_IDS, STAGES, type StageId } from '@shared/vocabulary';
 import { cx } from '../../../components/ui/cx';
@@ -267,7 +268,7 @@ export function OpenByUrgencyTiles({ open }: { open: OpenByUrgency }) {
 export function MentorLoadChart({ loads }: { loads: MentorLoadRow[] }) {
   const holding = loads.filter((l) => l.open > 0);
   const openTotal = loads.reduce((sum, l) => sum + l.open, 0);
-  const busiest = loads[0];
+  const busiest = busiestText(loads);
   const wide = useWideScreen();
   const data = loads.map((l) => ({ name: l.displayName, open: l.open, watching: l.watching, resolved: l.resolved }));
 
@@ -277,7 +278,7 @@ export function MentorLoadChart({ loads }: { loads: MentorLoadRow[] }) {
     ) : (
       <p>
         {holding.length} of {loads.length} mentors hold open cases ({openTotal} in all)
-        {busiest && busiest.open > 0 ? `; the busiest is ${busiest.displayName} with ${busiest.open} open and ${busiest.watching} watching` : ''}. Resolved counts
+        {busiest ? `; ${busiest}` : ''}. Resolved counts
         cases that ended in this range.
       </p>
     );
