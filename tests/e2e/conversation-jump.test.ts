@@ -89,6 +89,13 @@ describe('going to the conversation', () => {
       await expect.poll(() => whollyOnScreen(page, composer), LIVE).toBe(true);
       await expect.poll(() => whollyOnScreen(page, newest), LIVE).toBe(true);
 
+      // Opened afresh at the reply e-mail's link, the page goes there once the thread is in.
+      await page.goto('about:blank');
+      await page.goto(`/cases/${id}#conversation`);
+      await composer.waitFor(LIVE);
+      await expect.poll(() => whollyOnScreen(page, composer), LIVE).toBe(true);
+      await expect.poll(() => whollyOnScreen(page, newest), LIVE).toBe(true);
+
       // Opened without the anchor (from the shelf, the rounds), the case starts at its top.
       await page.goto(`/cases/${id}`);
       await page.getByRole('heading', { level: 1, name: title }).waitFor(LIVE);
