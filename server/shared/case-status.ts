@@ -29,6 +29,11 @@ export const RESOLVED_STATUSES: readonly CaseStatus[] = ['recovered', 'lost'];
 export type Role = 'grower' | 'mentor' | 'steward';
 export const ROLES = ['grower', 'mentor', 'steward'] as const;
 
+/** Mentors and stewards: they read every case, write mentor asides and work the rounds. */
+export function isStaffRole(role: Role): boolean {
+  return role === 'mentor' || role === 'steward';
+}
+
 /** Who may make each move by hand with POST /status. `watching` comes from closing, and
  * `recovered`/`lost` from the recovery report; those have routes of their own. */
 const MOVES: Record<CaseStatus, Partial<Record<CaseStatus, readonly Role[]>>> = {

@@ -20,6 +20,7 @@ import { caseRoom, caseStaffRoom, sessionRoom, STAFF_ROOM, userRoom } from './ro
 import { handshakeUser, originGuard, refusal, type SessionRequest } from './socket-auth';
 import { errorAck, presenceSettled, registerThreadHandlers, type ThreadServer } from './thread-handlers';
 import { trackViewers, type ViewerRegistry } from './viewers';
+import { isStaffRole } from '../../shared/case-status';
 
 export interface Realtime {
   io: ThreadServer;
@@ -79,7 +80,7 @@ export function attachRealtime(httpServer: http.Server, ctx: AppContext, options
 
   io.on('connection', (socket) => {
     const rooms = [userRoom(socket.data.userId), sessionRoom(socket.data.sid)];
-    if (socket.data.role === 'mentor' || socket.data.role === 'steward') rooms.push(STAFF_ROOM);
+    if (isStaffRole(socket.data.role)) rooms.push(STAFF_ROOM);
     void socket.join(rooms);
     registerThreadHandlers(io, socket, ctx);
   });

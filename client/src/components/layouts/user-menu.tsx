@@ -4,6 +4,7 @@ import { useLogout } from '../../features/auth/api/logout';
 import { ROLE_LABELS, signInPath } from '../../lib/auth';
 import { Button, buttonClasses } from '../ui/button';
 import { cx } from '../ui/cx';
+import { isStaffRole } from '@shared/case-status';
 
 /** Who is signed in and the way out; for a visitor, the ways in. */
 export function UserMenu({ user, layout }: { user: PublicUser | null; layout: 'bar' | 'stack' }) {
@@ -35,7 +36,7 @@ export function UserMenu({ user, layout }: { user: PublicUser | null; layout: 'b
         <span className="block text-base text-loam-soft">
           {ROLE_LABELS[user.role]}
           {/* In the bar at a desk there is no room beside a full menu; the rounds page links it there. */}
-          {stacked && (user.role === 'mentor' || user.role === 'steward') && (
+          {stacked && isStaffRole(user.role) && (
             <>
               {' · '}
               <Link to={`/mentors/${user.id}`}>your track record</Link>

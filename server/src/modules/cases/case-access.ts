@@ -4,6 +4,7 @@ import { QueryTypes } from 'sequelize';
 import { getSequelize } from '../../db/sequelize';
 import { notFound } from '../../lib/errors';
 import { log } from '../../lib/logger';
+import { isStaffRole } from '../../../shared/case-status';
 
 export interface CaseAccessRow {
   id: number;
@@ -14,13 +15,13 @@ export interface CaseAccessRow {
 
 export function canReadCase(user: Pick<Express.User, 'id' | 'role'> | undefined, row: CaseAccessRow): boolean {
   if (!user) return false;
-  if (user.role === 'mentor' || user.role === 'steward') return true;
+  if (isStaffRole(user.role)) return true;
   return row.growerId === user.id;
 }
 
 /** Mentors see asides; growers never do. */
 export function seesAsides(user: Pick<Express.User, 'role'>): boolean {
-  return user.role === 'mentor' || user.role === 'steward';
+  return isStaffRole(user.role);
 }
 
 export async function findCaseForAccess(caseId: number): Promise<CaseAccessRow | null> {

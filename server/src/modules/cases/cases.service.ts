@@ -3,7 +3,7 @@
 import type { Transaction } from 'sequelize';
 import { getSequelize } from '../../db/sequelize';
 import type { CaseDetail, CaseListItem, CaseListQuery, CaseNumbers, OpenCase, PhotoView } from '../../../shared/case-schemas';
-import { OPEN_STATUSES, type CaseStatus } from '../../../shared/case-status';
+import { OPEN_STATUSES, isStaffRole, type CaseStatus } from '../../../shared/case-status';
 import type { StageId, SymptomId } from '../../../shared/vocabulary';
 import { notFound } from '../../lib/errors';
 import { numbersOfBatch } from '../batches/batches.service';
@@ -42,7 +42,7 @@ export interface CaseListPage {
 }
 
 export function listFilterOf(user: Reader, query: CaseListQuery): CaseListFilter {
-  const staff = user.role === 'mentor' || user.role === 'steward';
+  const staff = isStaffRole(user.role);
   let statuses: readonly CaseStatus[] | null;
   if (query.status === 'all') statuses = null;
   else if (query.status?.length) statuses = query.status;

@@ -18,7 +18,7 @@
 // Every change is one transaction (case row locked first), with its system line; the live update
 // is sent only after commit.
 import type { Transaction } from 'sequelize';
-import { STATUS_LABELS } from '../../../shared/case-status';
+import { STATUS_LABELS, isStaffRole } from '../../../shared/case-status';
 import {
   LOST_AFTER_DAYS,
   type ClosingState,
@@ -46,7 +46,6 @@ const CLOSABLE = new Set(['in_conversation', 'over_to_grower']);
 const RESOLVED = new Set(['recovered', 'lost']);
 const DAY_MS = 86_400_000;
 
-const isStaff = (user: Express.User) => user.role === 'mentor' || user.role === 'steward';
 const holdsOrStewards = (user: Express.User, row: ClosingRow) => user.role === 'steward' || (user.role === 'mentor' && row.mentorId === user.id);
 
 function lostAllowedFrom(row: ClosingRow): Date | null {
@@ -81,7 +80,7 @@ function closingStateOf(user: Express.User, row: ClosingRow, checkIns: ClosingSt
     consentPhotos: row.consentPhotos,
     published: row.published && row.noteSlug !== null,
     noteSlug: row.noteSlug,
-    ...(isStaff(user) && !isGrower ? { redactTerms: row.redactTerms } : {}),
+    ...(isStaffRole(user.role) && !isGrower ? { redactTerms: row.redactTerms } : {}),
     can: {
       close: !isGrower && holdsOrStewards(user, row) && CLOSABLE.has(row.status),
       fileReport: isGrower && row.status === 'watching',

@@ -1,6 +1,6 @@
 import { useDeferredValue, useEffect, useState } from 'react';
 import { Link } from 'react-router';
-import { ROLES, type Role } from '@shared/case-status';
+import { ROLES, isStaffRole, type Role } from '@shared/case-status';
 import type { StewardUser } from '@shared/steward-schemas';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
@@ -171,7 +171,7 @@ function PersonRow({ user, isMe, onRole, onDisabled }: { user: StewardUser; isMe
         <p className="truncate text-loam-soft">{user.email}</p>
         <p className="text-sm text-loam-soft">
           {ROLE_LABELS[user.role]} · joined {formatDate(user.createdAt)}
-          {(user.role === 'mentor' || user.role === 'steward') && !user.disabled && (
+          {isStaffRole(user.role) && !user.disabled && (
             <>
               {' · '}
               <Link to={`/mentors/${user.id}`}>

@@ -22,6 +22,7 @@ import { ConnectionBanner } from './connection-banner';
 import { MessageItem, PendingItem } from './message-item';
 import { PresenceLine, TypingLine } from './presence-line';
 import { WorkflowBar } from './workflow-bar';
+import { isStaffRole } from '@shared/case-status';
 
 export interface CaseThreadProps {
   caseId: number;
@@ -57,7 +58,7 @@ function LiveThread({ caseId, detail, user, closeCaseAction }: { caseId: number;
   const live = useLiveThread(caseId, { myUserId: user.id, onCaseUpdated: refreshCase });
 
   const isGrower = detail.grower.id === user.id;
-  const staff = !isGrower && (user.role === 'mentor' || user.role === 'steward');
+  const staff = !isGrower && isStaffRole(user.role);
   const ended = ENDED.has(detail.status);
   const messages = useMemo(() => thread.data ?? [], [thread.data]);
   // A message the server already holds stands in for its pending copy.

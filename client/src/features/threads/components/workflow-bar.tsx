@@ -1,6 +1,6 @@
 import { useEffect, useRef, useState, type ReactNode } from 'react';
 import type { CaseDetail } from '@shared/case-schemas';
-import { CASE_STATUSES, OPEN_STATUSES, STATUS_LABELS, canMove, type CaseStatus, type Role } from '@shared/case-status';
+import { CASE_STATUSES, OPEN_STATUSES, STATUS_LABELS, canMove, isStaffRole, type CaseStatus, type Role } from '@shared/case-status';
 import type { PublicUser } from '@shared/auth-schemas';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
@@ -51,7 +51,7 @@ export function WorkflowBar({ detail, user, closeCaseAction }: WorkflowBarProps)
   const open = OPEN_STATUSES.includes(status);
   const heldByMe = detail.mentor?.id === user.id;
   const heldByOther = detail.mentor !== null && !heldByMe;
-  const staff = role === 'mentor' || role === 'steward';
+  const staff = isStaffRole(role);
   const canClaim = staff && open && detail.mentor === null;
   // The server's rule (workflow.service.ts): the mentor who holds the case, or a steward.
   const canHandOver = open && (role === 'steward' || (role === 'mentor' && heldByMe));
