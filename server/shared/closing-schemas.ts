@@ -5,6 +5,7 @@ import { z } from 'zod';
 import type { CaseStatus } from './case-status';
 import { OUTCOMES, OUTCOME_LABELS, type Outcome } from './outcomes';
 import { CAUSE_IDS, REMEDY_IDS, type CauseId, type RemedyId } from './vocabulary';
+import { LIBRARY_HOLD_REASON_MAX } from './moderation-limits';
 
 /** Check-ins after closing, in days: the grower hears from us after 1, 3 and 7 days unless they
  * answer first (PRODUCT.md screen 6). */
@@ -67,6 +68,13 @@ export type ConsentInput = z.infer<typeof consentSchema>;
 
 export const publishSchema = z.object({ redactTerms: redactTermsSchema.optional() });
 
+/** A steward taking a field note out of the Field Library says why (the case's thread shows it). */
+export const takeDownSchema = z.object({
+  reason: text(LIBRARY_HOLD_REASON_MAX, 'the reason')
+    .min(3, { error: 'Say in a few words why the note comes out of the library.' }),
+});
+export type TakeDownInput = z.infer<typeof takeDownSchema>;
+
 export interface CheckInView {
   day: number;
   dueAt: string;
@@ -100,11 +108,16 @@ export interface ClosingState {
   noteSlug: string | null;
   /** Mentors and stewards only (the grower never sees what the mentor flagged). */
   redactTerms?: string[];
+  /** A steward took the field note out of the Field Library; it stays out until a steward puts it back. */
+  libraryHold: { by: { id: number; displayName: string } | null; at: string; reason: string } | null;
   can: {
     close: boolean;
     fileReport: boolean;
     changeConsent: boolean;
+    /** Publish again (the holding mentor or a steward, with consent); a steward's hold allows only stewards. */
     publish: boolean;
+    /** A steward, while the note is in the library. */
+    takeDown: boolean;
     closeAsLost: boolean;
   };
   /** When a steward may close this watching case as lost (null when not watching). */

@@ -146,6 +146,15 @@ const fillCaseForm = {
   },
 };
 
+// Opened, not sent: the demo note stays in the library.
+const openTakeDown = {
+  what: 'the steward’s take-down dialog open',
+  act: async (page: Page) => {
+    await page.getByRole('button', { name: 'Take it out of the library' }).click();
+    await page.getByLabel('Why does it come out?').waitFor(WAIT);
+  },
+};
+
 const openClosingForm = {
   what: 'closing form open',
   act: async (page: Page) => {
@@ -204,7 +213,8 @@ const PEOPLE: { who: Who; screens: () => Screen[] }[] = [
   },
   {
     who: 'steward',
-    screens: () => [{ path: '/steward' }],
+    // The desk last: its tabs are checked on the page it leaves open.
+    screens: () => [{ path: `/library/${noteSlug}`, then: openTakeDown }, { path: '/steward' }],
   },
 ];
 

@@ -126,7 +126,7 @@ describe('GET /api/cases/:id/closing', () => {
     const { caseId, grower, mentor } = await watchingCase(t.app, {}, { redactTerms: ['Hollybrook'] });
     const forGrower = await grower.browser.get(`/api/cases/${caseId}/closing`);
     expect(forGrower.status).toBe(200);
-    expect(forGrower.body.can).toEqual({ close: false, fileReport: true, changeConsent: false, publish: false, closeAsLost: false });
+    expect(forGrower.body.can).toEqual({ close: false, fileReport: true, changeConsent: false, publish: false, takeDown: false, closeAsLost: false });
     // What the mentor flagged to leave out is not the grower's to read.
     expect(forGrower.body.redactTerms).toBeUndefined();
     const forMentor = await mentor.browser.get(`/api/cases/${caseId}/closing`);

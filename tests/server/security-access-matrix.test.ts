@@ -146,6 +146,8 @@ const MATRIX: Record<string, Row> = {
   'GET /api/library': { path: () => '/api/library', expect: ANYONE },
   'GET /api/library/:slug': { path: (f) => `/api/library/${f.slug}`, expect: ANYONE },
   // A guide has no photos: everyone gets the same 404, nobody a 401/403.
+  // Curating the library is a steward's (on the shared guide: 409, guides come from files).
+  'POST /api/library/:slug/take-down': { path: (f) => `/api/library/${f.slug}/take-down`, body: () => ({ reason: 'It names a farm.' }), expect: [401, 403, 403, 403, 'pass'] },
   'GET /api/library/:slug/photos/:photoId': { path: (f) => `/api/library/${f.slug}/photos/1`, expect: [404, 404, 404, 404, 404] },
   'GET /api/library/:slug/photos/:photoId/thumb': { path: (f) => `/api/library/${f.slug}/photos/1/thumb`, expect: [404, 404, 404, 404, 404] },
   // Who mentors, and how many cases each holds, is for the staff handing a case over.

@@ -33,6 +33,10 @@ export interface ClosingRow {
   mentorName: string | null;
   closedByName: string | null;
   noteSlug: string | null;
+  libraryHoldReason: string | null;
+  libraryHoldBy: number | null;
+  libraryHoldByName: string | null;
+  libraryHoldAt: Date | null;
 }
 
 const CLOSING_SELECT = `
@@ -43,11 +47,14 @@ const CLOSING_SELECT = `
          c.consent_to_publish AS "consentToPublish", c.consent_photos AS "consentPhotos", c.published,
          c.redact_terms AS "redactTerms",
          g.display_name AS "growerName", g.email AS "growerEmail", m.display_name AS "mentorName",
-         cb.display_name AS "closedByName", e.slug AS "noteSlug"
+         cb.display_name AS "closedByName", e.slug AS "noteSlug",
+         c.library_hold_reason AS "libraryHoldReason", c.library_hold_by AS "libraryHoldBy",
+         hb.display_name AS "libraryHoldByName", c.library_hold_at AS "libraryHoldAt"
     FROM cases c
     JOIN users g ON g.id = c.grower_id
     LEFT JOIN users m ON m.id = c.mentor_id
     LEFT JOIN users cb ON cb.id = c.closed_by
+    LEFT JOIN users hb ON hb.id = c.library_hold_by
     LEFT JOIN library_entries e ON e.case_id = c.id AND e.kind = 'note'`;
 
 export const closingRepository = {
@@ -113,6 +120,14 @@ export const closingRepository = {
 
   async setRedactTerms(caseId: number, terms: readonly string[], transaction: Transaction): Promise<void> {
     await getSequelize().query(`UPDATE cases SET redact_terms = $2::text[], updated_at = now() WHERE id = $1`, { bind: [caseId, [...terms]], transaction });
+  },
+
+  /** A steward's hold on the field note (null clears it). */
+  async setLibraryHold(caseId: number, hold: { stewardId: number; reason: string } | null, transaction: Transaction): Promise<void> {
+    await getSequelize().query(
+      `UPDATE cases SET library_hold_reason = $2, library_hold_by = $3, library_hold_at = CASE WHEN $2::text IS NULL THEN NULL ELSE now() END, updated_at = now() WHERE id = $1`,
+      { bind: [caseId, hold?.reason ?? null, hold?.stewardId ?? null], transaction },
+    );
   },
 
   async markLost(caseId: number, transaction: Transaction): Promise<void> {

@@ -13,6 +13,9 @@
 // - Consent can be changed later by the grower on a resolved case: false takes the note down,
 //   true publishes it. A mentor or steward may re-publish (e.g. with more words left out), but
 //   never without the grower's consent (409).
+// - A steward may take a published field note out of the Field Library, saying why (a system
+//   line and the audit log keep the reason). It stays out, whatever the mentor re-publishes or the
+//   grower consents to again, until a steward publishes it again, which lifts the hold.
 // - Close as lost: a steward, on a case watching for at least LOST_AFTER_DAYS since closing with
 //   no report. It records no outcome, so it counts in no track record, and it is not published.
 // Every change is one transaction (case row locked first), with its system line; the live update
@@ -30,6 +33,7 @@ import type { ThreadMessage } from '../../../shared/socket-events';
 import type { AppContext } from '../../context';
 import { getSequelize } from '../../db/sequelize';
 import { AppError, conflict, forbidden, notFound } from '../../lib/errors';
+import { audit } from '../audit/audit';
 import { readableCaseOr404 } from '../cases/case-access';
 import { indexResolvedCase } from '../cases/search-index';
 import { publishFieldNote, unpublishFieldNote } from '../library/field-notes';
@@ -81,11 +85,26 @@ function closingStateOf(user: Express.User, row: ClosingRow, checkIns: ClosingSt
     published: row.published && row.noteSlug !== null,
     noteSlug: row.noteSlug,
     ...(isStaffRole(user.role) && !isGrower ? { redactTerms: row.redactTerms } : {}),
+    libraryHold:
+      row.libraryHoldReason !== null && row.libraryHoldAt !== null
+        ? {
+            by: row.libraryHoldBy != null ? { id: row.libraryHoldBy, displayName: row.libraryHoldByName ?? '' } : null,
+            at: new Date(row.libraryHoldAt).toISOString(),
+            reason: row.libraryHoldReason,
+          }
+        : null,
     can: {
       close: !isGrower && holdsOrStewards(user, row) && CLOSABLE.has(row.status),
       fileReport: isGrower && row.status === 'watching',
       changeConsent: isGrower && RESOLVED.has(row.status) && row.outcome !== null,
-      publish: !isGrower && holdsOrStewards(user, row) && RESOLVED.has(row.status) && row.outcome !== null && row.consentToPublish,
+      publish:
+        !isGrower &&
+        holdsOrStewards(user, row) &&
+        (row.libraryHoldReason === null || user.role === 'steward') &&
+        RESOLVED.has(row.status) &&
+        row.outcome !== null &&
+        row.consentToPublish,
+      takeDown: user.role === 'steward' && !isGrower && row.published && row.noteSlug !== null,
       closeAsLost: user.role === 'steward' && !isGrower && lostFrom !== null && lostFrom.getTime() <= Date.now(),
     },
     lostAllowedFrom: iso(lostFrom),
@@ -212,6 +231,10 @@ export async function changeConsent(ctx: AppContext, user: Express.User, caseId:
     const consentPhotos = input.consentToPublish ? (input.consentPhotos ?? row.consentPhotos) : false;
     if (input.consentToPublish === row.consentToPublish && consentPhotos === row.consentPhotos && row.published === input.consentToPublish) return { line: null };
     await repo.setConsent(caseId, input.consentToPublish, consentPhotos, t);
+    if (input.consentToPublish && row.libraryHoldReason !== null) {
+      if (row.consentToPublish) return { line: null };
+      return { line: `${user.displayName} agreed to share this case again; a steward took its field note out of the Field Library, so it stays out until a steward puts it back.` };
+    }
     if (input.consentToPublish) {
       await publishFieldNote(caseId, t);
       return { line: `${user.displayName} agreed to share this case: it is now an anonymised field note in the Field Library.` };
@@ -225,10 +248,32 @@ export async function republish(ctx: AppContext, user: Express.User, caseId: num
   return run(ctx, user, caseId, async (row, t) => {
     if (row.growerId === user.id || !holdsOrStewards(user, row)) throw forbidden('Only the mentor who held this case, or a steward, can publish it.');
     if (!row.consentToPublish) throw conflict('no_consent', 'The grower has not agreed to share this case, so it cannot be published.');
+    const held = row.libraryHoldReason !== null;
+    if (held && user.role !== 'steward') {
+      throw conflict('held_by_steward', `A steward took this field note out of the Field Library (“${row.libraryHoldReason}”); only a steward can put it back.`);
+    }
     if (redactTerms) await repo.setRedactTerms(caseId, redactTerms, t);
     const wasPublished = row.published;
     await publishFieldNote(caseId, t);
+    if (held) {
+      await repo.setLibraryHold(caseId, null, t);
+      await audit(user.id, 'field_note.restored', { type: 'case', id: caseId }, { heldFor: row.libraryHoldReason }, t);
+      return { line: `${user.displayName} put the field note of this case back in the Field Library.` };
+    }
     return { line: `${user.displayName} ${wasPublished ? 'updated' : 'published'} the field note of this case.` };
+  });
+}
+
+/** A steward takes a case's published field note out of the Field Library, saying why. */
+export async function takeOutOfLibrary(ctx: AppContext, user: Express.User, caseId: number, reason: string): Promise<ClosingState> {
+  return run(ctx, user, caseId, async (row, t) => {
+    if (user.role !== 'steward') throw forbidden('Only a steward can take a field note out of the Field Library.');
+    if (!row.published || row.noteSlug === null) throw conflict('not_published', 'This case has no field note in the Field Library.');
+    const slug = row.noteSlug;
+    await unpublishFieldNote(caseId, t);
+    await repo.setLibraryHold(caseId, { stewardId: user.id, reason }, t);
+    await audit(user.id, 'field_note.taken_down', { type: 'case', id: caseId }, { slug, reason }, t);
+    return { line: `${user.displayName} took the field note of this case out of the Field Library: “${reason}”` };
   });
 }
 

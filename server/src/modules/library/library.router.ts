@@ -2,13 +2,17 @@
 //   GET /api/library?q=&stage=&symptom=&kind=guide|note&page=&pageSize=  → LibraryList
 //   GET /api/library/:slug                                              → LibraryEntry
 //   GET /api/library/:slug/photos/:photoId(/thumb)                      → a photo the note lists
+//   POST /api/library/:slug/take-down  a steward { reason }              → the case's ClosingState
 import { Router, type Response } from 'express';
 import { libraryQuerySchema } from '../../../shared/library-query';
 import type { AppContext } from '../../context';
-import { parseId, parseOr400 } from '../../lib/http';
+import { takeDownSchema } from '../../../shared/closing-schemas';
+import { parseId, parseOr400, requireUser } from '../../lib/http';
+import { forbidden } from '../../lib/errors';
+import { takeOutOfLibrary } from '../closing/closing.service';
 import { createPhotoStore } from '../../lib/photo-store';
 import { notFound } from '../../lib/errors';
-import { getLibraryEntry, notePhotoKey, searchLibrary } from './library.service';
+import { getLibraryEntry, noteCaseId, notePhotoKey, searchLibrary } from './library.service';
 
 export function libraryRouter(ctx: AppContext): Router {
   const router = Router();
@@ -21,6 +25,16 @@ export function libraryRouter(ctx: AppContext): Router {
 
   router.get('/:slug', async (req, res) => {
     res.json(await getLibraryEntry(String(req.params.slug)));
+  });
+
+  // Curating the library: a steward takes a field note out (its case keeps everything; a steward
+  // can put the note back from the case page). Guides come from the knowledge/ folder instead.
+  router.post('/:slug/take-down', async (req, res) => {
+    const user = requireUser(req);
+    if (user.role !== 'steward') throw forbidden('Only a steward can take a field note out of the Field Library.');
+    const { reason } = parseOr400(takeDownSchema, req.body, 'Taking the note out needs a reason.');
+    const caseId = await noteCaseId(String(req.params.slug));
+    res.json(await takeOutOfLibrary(ctx, user, caseId, reason));
   });
 
   const sendPhoto = async (slug: string, photoId: unknown, thumb: boolean, res: Response) => {

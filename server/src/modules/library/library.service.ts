@@ -28,7 +28,7 @@
 import type { Outcome } from '../../../shared/closing-schemas';
 import type { LibraryEntry, LibraryList, LibraryListItem, LibraryPhoto, LibraryQuery, RemedyRecordView } from '../../../shared/library-schemas';
 import { describeRecord, remedyRecords } from '../../../shared/remedy-records';
-import { notFound } from '../../lib/errors';
+import { conflict, notFound } from '../../lib/errors';
 import { queryWords } from '../cases/search-index';
 import { resolvedCaseCount } from '../cases/similar.service';
 import { byScore, fuseScores, idfOf, termScore, type WeightedWord } from './library-ranking';
@@ -225,6 +225,17 @@ export async function getLibraryEntry(slug: string): Promise<LibraryEntry> {
           }
         : null,
   };
+}
+
+/** The case behind a field note (for a steward curating the library); a guide has none. */
+export async function noteCaseId(slug: string): Promise<number> {
+  if (!SLUG_PATTERN.test(slug)) throw notFound('That Field Library page');
+  const row = await repo.findBySlug(slug);
+  if (!row) throw notFound('That Field Library page');
+  if (row.kind !== 'note' || !row.caseId) {
+    throw conflict('guide_from_files', 'Guides come from the knowledge folder of Sporewell: change or remove the file there instead.');
+  }
+  return row.caseId;
 }
 
 /** The stored photo behind a field note's photo URL; only photos the note lists (the grower agreed). */

@@ -1,6 +1,7 @@
 // A guide or a field note (/library/:slug): its text rendered from Markdown (no raw HTML), what
 // it is about, for a note how it turned out and how its remedy holds up, its sources, and the
 // safety cautions.
+import { lazy, Suspense } from 'react';
 import type { QueryClient } from '@tanstack/react-query';
 import { useSuspenseQuery } from '@tanstack/react-query';
 import { Link, data, useParams, type LoaderFunctionArgs } from 'react-router';
@@ -9,6 +10,7 @@ import { PAGE_WIDTH } from '../../../components/layouts/content-layout';
 import { SafetyCautions } from '../../../components/safety-cautions';
 import { Alert } from '../../../components/ui/alert';
 import { cx } from '../../../components/ui/cx';
+import { useUser } from '../../../features/auth/api/get-me';
 import { libraryEntryQueryOptions } from '../../../features/library/api/get-library-entry';
 import { CauseRemedyTerms } from '../../../features/library/components/cause-remedy-terms';
 import { EntryMarkdown } from '../../../features/library/components/entry-markdown';
@@ -29,10 +31,14 @@ export const clientLoader = (queryClient: QueryClient) => async ({ params }: Loa
 
 const dateText = (iso: string) => dayMonthYearOf(new Date(iso));
 
+// Stewards only: its code (and the schema it checks with) is not fetched for anyone else.
+const TakeDownPanel = lazy(() => import('../../../features/library/components/take-down-panel').then((m) => ({ default: m.TakeDownPanel })));
+
 export default function FieldNoteRoute() {
   const slug = slugOf(useParams().slug);
   const { data: entry } = useSuspenseQuery(libraryEntryQueryOptions(slug));
   const isNote = entry.kind === 'note';
+  const steward = useUser().data?.role === 'steward';
   const discardSigns = discardSignsIn(entry.symptoms);
 
   return (
@@ -134,6 +140,11 @@ export default function FieldNoteRoute() {
             </section>
           )}
           <SafetyCautions />
+          {isNote && steward && (
+            <Suspense fallback={null}>
+              <TakeDownPanel slug={entry.slug} />
+            </Suspense>
+          )}
         </aside>
       </article>
     </div>

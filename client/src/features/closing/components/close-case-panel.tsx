@@ -77,8 +77,31 @@ export function CloseCasePanel({ caseId }: { caseId: number }) {
         </Suspense>
       )}
       {closed && <ClosingRecord state={state} />}
+      {state.libraryHold && state.can.publish && <PutBack state={state} />}
       {state.can.closeAsLost && <CloseAsLost state={state} />}
     </section>
+  );
+}
+
+/** A steward lifts a hold: the field note goes back into the Field Library. */
+function PutBack({ state }: { state: ClosingState }) {
+  const queryClient = useQueryClient();
+  const mutation = useMutation({
+    mutationFn: () => api.post<ClosingState>(`/api/cases/${state.caseId}/publish`, {}),
+    onSuccess: (next) => refreshAfterClosing(queryClient, next),
+  });
+  return (
+    <div className="flex flex-col gap-2 border-t border-line pt-3">
+      <p>The grower still agrees to share this case. When what was wrong with the note is settled, put it back.</p>
+      <Button variant="secondary" className="self-start" onClick={() => mutation.mutate()} disabled={mutation.isPending}>
+        {mutation.isPending ? 'Putting it back…' : 'Put it back in the Field Library'}
+      </Button>
+      {mutation.error && (
+        <p role="alert" className="font-semibold text-ember">
+          {mutation.error.message}
+        </p>
+      )}
+    </div>
   );
 }
 

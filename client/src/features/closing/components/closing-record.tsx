@@ -78,6 +78,18 @@ export function ClosingRecord({ state }: { state: ClosingState }) {
           Shared in the Field Library: <Link to={`/library/${state.noteSlug}`}>read the field note</Link>
         </p>
       )}
+      {/* The grower reads this in their own "Sharing this case" section. */}
+      {state.libraryHold && !state.can.changeConsent && <LibraryHoldText hold={state.libraryHold} />}
     </div>
+  );
+}
+
+/** Who took the field note out of the Field Library, when, and why. */
+export function LibraryHoldText({ hold }: { hold: NonNullable<ClosingState['libraryHold']> }) {
+  return (
+    <p>
+      <span className="font-bold">Out of the Field Library:</span> {hold.by?.displayName ?? 'A steward'} took the field note out on {dayText(hold.at)}
+      ; it stays out until a steward puts it back. The reason given: “{hold.reason}”
+    </p>
   );
 }

@@ -4,6 +4,7 @@ import { Alert } from '../../../components/ui/alert';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { useChangeConsent } from '../api/change-consent';
 import { useClosing } from '../api/get-closing';
+import { LibraryHoldText } from './closing-record';
 
 /**
  * On the case page, for its grower: while the case is watching, the way to the recovery report;
@@ -40,7 +41,9 @@ export function RecoveryPrompt({ caseId }: { caseId: number }) {
       <h2 id={headingId} className="text-xl font-extrabold">
         Sharing this case
       </h2>
-      {state.published && state.noteSlug ? (
+      {state.libraryHold ? (
+        <LibraryHoldText hold={state.libraryHold} />
+      ) : state.published && state.noteSlug ? (
         <p>
           This case is in the Field Library as an anonymised field note: <Link to={`/library/${state.noteSlug}`}>read it</Link>. You can stop
           sharing it at any time.

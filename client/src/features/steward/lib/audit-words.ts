@@ -27,6 +27,10 @@ export function describeAudit(entry: AuditEntry): string {
       return `reported a message in “${target}”${quoted(d.reason)}`;
     case 'message.hidden':
       return `hid a message in “${target}”${quoted(d.note)}`;
+    case 'field_note.taken_down':
+      return `took the field note of “${target}” out of the Field Library${quoted(d.reason)}`;
+    case 'field_note.restored':
+      return `put the field note of “${target}” back in the Field Library`;
     case 'report.dismissed':
       return `dismissed a report about a message in “${target}”${quoted(d.note)}`;
     default:

@@ -1,0 +1,87 @@
+// Curating the Field Library, for stewards on a field note's page: take the note out, saying
+// why. The case keeps everything; its thread and the audit log record the reason, and a steward
+// can put the note back from the case page. Loaded only for stewards (the page is public).
+import { useId, useState } from 'react';
+import { Link } from 'react-router';
+import { LIBRARY_HOLD_REASON_MAX } from '@shared/moderation-limits';
+import { Alert } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
+import { isApiError } from '../../../lib/api-client';
+import { ConfirmDialog } from '../../steward/components/confirm-dialog';
+import { TextAreaField } from '../../steward/components/form-controls';
+import { useTakeDownNote } from '../api/take-down-note';
+
+export function TakeDownPanel({ slug }: { slug: string }) {
+  const headingId = useId();
+  const [open, setOpen] = useState(false);
+  const [reason, setReason] = useState('');
+  const [problem, setProblem] = useState<string | undefined>();
+  const takeDown = useTakeDownNote(slug);
+
+  const send = async () => {
+    const { takeDownSchema } = await import('@shared/closing-schemas');
+    const parsed = takeDownSchema.safeParse({ reason });
+    if (!parsed.success) {
+      setProblem(parsed.error.issues[0]?.message);
+      return;
+    }
+    setProblem(undefined);
+    takeDown.mutate(parsed.data.reason, {
+      onSuccess: () => setOpen(false),
+      onError: (error) => setProblem(isApiError(error) ? error.fields?.reason : undefined),
+    });
+  };
+
+  if (takeDown.isSuccess) {
+    const state = takeDown.data;
+    return (
+      <Alert tone="warning" title="This note is out of the Field Library">
+        Visitors and growers no longer find it, here or among their batches like this. The case’s thread says why.{' '}
+        <Link to={`/cases/${state.caseId}`}>Open the case</Link> to put it back later, or go <Link to="/library">back to the Field Library</Link>.
+      </Alert>
+    );
+  }
+
+  return (
+    <section aria-labelledby={headingId} className="flex flex-col gap-3 rounded-soft border-2 border-dashed border-loam-soft p-4 sm:p-5">
+      <h2 id={headingId} className="text-xl font-extrabold">
+        For stewards
+      </h2>
+      <p className="text-base">
+        If this note names a person or a place, or its advice is not safe to copy, take it out of the library. The case keeps everything, and a
+        steward can put it back from the case page.
+      </p>
+      <Button variant="secondary" className="self-start" onClick={() => setOpen(true)}>
+        Take it out of the library
+      </Button>
+      <ConfirmDialog
+        open={open}
+        title="Take this note out of the Field Library"
+        confirmLabel="Take it out"
+        confirmVariant="danger"
+        busy={takeDown.isPending}
+        onConfirm={() => void send()}
+        onCancel={() => {
+          setOpen(false);
+          setProblem(undefined);
+          takeDown.reset();
+        }}
+      >
+        <p>The grower and the mentor see your reason in the case’s thread; it also goes into the audit log.</p>
+        <TextAreaField
+          label="Why does it come out?"
+          value={reason}
+          maxLength={LIBRARY_HOLD_REASON_MAX}
+          rows={3}
+          onChange={(e) => setReason(e.target.value)}
+          error={problem}
+        />
+        {takeDown.isError && !(isApiError(takeDown.error) && takeDown.error.fields?.reason) && (
+          <Alert tone="danger" title="The note is still in the library">
+            {takeDown.error.message}
+          </Alert>
+        )}
+      </ConfirmDialog>
+    </section>
+  );
+}
