@@ -71,10 +71,14 @@ export function WorkflowBar({ detail, user, closeCaseAction }: WorkflowBarProps)
   const error = claim.error ?? move.error ?? handOver.error;
   const busy = claim.isPending || move.isPending || handOver.isPending;
 
+  // A case that ended (recovered, lost, withdrawn) is no longer held by anyone; say who did.
+  const ended = !open && status !== 'watching';
   const holder = detail.mentor
     ? heldByMe
-      ? 'You hold this case.'
-      : `${detail.mentor.displayName} holds this case.`
+      ? ended
+        ? 'You held this case.'
+        : 'You hold this case.'
+      : `${detail.mentor.displayName} ${ended ? 'held' : 'holds'} this case.`
     : open
       ? 'No mentor has taken this case yet.'
       : null;
