@@ -34,6 +34,23 @@ describe('signing in as the demo grower', () => {
     });
   }
 
+  test('when the demo mentor and the demo steward sign in with nowhere else asked for, then each starts where their work is: the rounds, the steward desk', async () => {
+    for (const [email, path, heading] of [
+      ['mentor@example.test', '/rounds', 'Rounds'],
+      ['steward@example.test', '/steward', 'Steward desk'],
+    ] as const) {
+      const context = await newContext(browser, PHONE);
+      const page = await context.newPage();
+      await signIn(page, email);
+      await expect.poll(() => new URL(page.url()).pathname, SIGNED_IN_WAIT).toBe(path);
+      await page.getByRole('heading', { level: 1, name: heading }).waitFor(SIGNED_IN_WAIT);
+      // Signed in already, the sign-in page sends them there too.
+      await page.goto('/sign-in');
+      await expect.poll(() => new URL(page.url()).pathname, SIGNED_IN_WAIT).toBe(path);
+      await context.close();
+    }
+  });
+
   test('when the password is wrong, then the page says so and stays on sign-in', async () => {
     const context = await newContext(browser);
     const page = await context.newPage();

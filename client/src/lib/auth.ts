@@ -37,6 +37,10 @@ export async function loadUser(queryClient: QueryClient): Promise<PublicUser | n
   }
 }
 
+/** Where each role starts after signing in: a grower at their batches, a mentor at the rounds,
+ * a steward at the desk. */
+export const HOME_BY_ROLE: Record<Role, string> = { grower: '/batches', mentor: '/rounds', steward: '/steward' };
+
 /** Only same-site paths, so a crafted `next` cannot send someone to another site after sign-in. */
 export function safeNext(next: string | null | undefined, fallback = '/batches'): string {
   if (!next || !next.startsWith('/') || next.startsWith('//') || next.startsWith('/\\')) return fallback;
@@ -92,6 +96,6 @@ export const redirectIfSignedIn =
   (queryClient: QueryClient) =>
   async ({ request }: { request: Request }) => {
     const user = await loadUser(queryClient);
-    if (user) throw redirect(safeNext(new URL(request.url).searchParams.get('next')));
+    if (user) throw redirect(safeNext(new URL(request.url).searchParams.get('next'), HOME_BY_ROLE[user.role]));
     return null;
   };

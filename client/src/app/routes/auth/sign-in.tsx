@@ -2,7 +2,7 @@ import { Link, useNavigate, useSearchParams } from 'react-router';
 import { ContentLayout } from '../../../components/layouts/content-layout';
 import { Card } from '../../../components/ui/card';
 import { SignInForm } from '../../../features/auth/components/sign-in-form';
-import { redirectIfSignedIn, safeNext } from '../../../lib/auth';
+import { HOME_BY_ROLE, redirectIfSignedIn, safeNext } from '../../../lib/auth';
 
 export const clientLoader = redirectIfSignedIn;
 
@@ -16,7 +16,7 @@ export default function SignInRoute() {
   return (
     <ContentLayout title="Sign in" lead={rawNext ? 'Sign in to go on to the page you asked for.' : undefined}>
       <Card className="max-w-md">
-        <SignInForm onSignedIn={() => navigate(next, { replace: true })} />
+        <SignInForm onSignedIn={(user) => navigate(safeNext(rawNext, HOME_BY_ROLE[user.role]), { replace: true })} />
       </Card>
       <p className="mt-6">
         <Link to="/forgot-password">Forgot your password?</Link>
