@@ -88,6 +88,14 @@ describe('a steward curating the Field Library', () => {
       await page.getByText('This note is out of the Field Library').waitFor(LIVE);
       expect(await visitorStatus()).toBe(404);
       await shot(page, `library-take-down-done-${name}`);
+      // A visitor with the old link is told it is gone and where to look instead.
+      const visitorContext = await newContext(browser, device);
+      const visitorPage = await visitorContext.newPage();
+      await visitorPage.goto(`/library/${slug}`);
+      await visitorPage.getByRole('heading', { level: 1, name: 'That Field Library page is not there' }).waitFor(LIVE);
+      await visitorPage.getByRole('link', { name: 'Search the Field Library' }).click();
+      await visitorPage.getByRole('heading', { level: 1, name: 'Field Library' }).waitFor(LIVE);
+      await visitorContext.close();
 
       await page.getByRole('link', { name: 'Open the case' }).click();
       await page.waitForURL(`**/cases/${caseId}`, LIVE);

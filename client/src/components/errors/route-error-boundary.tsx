@@ -1,4 +1,4 @@
-import { Link, isRouteErrorResponse, useRouteError } from 'react-router';
+import { Link, isRouteErrorResponse, useLocation, useRouteError } from 'react-router';
 import type { Role } from '@shared/case-status';
 import { ApiError } from '../../lib/api-client';
 import { isRoleRefusal } from '../../lib/auth';
@@ -27,6 +27,7 @@ function BackToStart() {
 export function RouteErrorBoundary() {
   const error = useRouteError();
   const status = statusOf(error);
+  const { pathname } = useLocation();
 
   if (isRouteErrorResponse(error) && isRoleRefusal(error.data)) {
     const allowed = error.data.allowed.map((role) => ROLE_PLURALS[role]).join(' and ');
@@ -36,6 +37,23 @@ export function RouteErrorBoundary() {
         lead={`It is for ${allowed}. You are signed in as ${ROLE_SINGULARS[error.data.role]}.`}
       >
         <BackToStart />
+      </ContentLayout>
+    );
+  }
+
+  // A field note that is gone was usually taken out of the library (or its case renamed): what
+  // it was about may still be found by searching.
+  if (status === 404 && pathname.startsWith('/library/')) {
+    return (
+      <ContentLayout title="That Field Library page is not there" lead="It may have been taken out of the library or renamed. Search for what it was about.">
+        <div className="flex flex-wrap gap-3">
+          <Link to="/library" className={buttonClasses('primary')}>
+            Search the Field Library
+          </Link>
+          <Link to="/" className={buttonClasses('secondary')}>
+            Back to the start
+          </Link>
+        </div>
       </ContentLayout>
     );
   }
