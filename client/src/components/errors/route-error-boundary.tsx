@@ -4,6 +4,7 @@ import { ApiError } from '../../lib/api-client';
 import { isRoleRefusal } from '../../lib/auth';
 import { ContentLayout } from '../layouts/content-layout';
 import { SporewellMark } from '../layouts/sporewell-mark';
+import { NotFoundPage } from './not-found-page';
 import { Button, buttonClasses } from '../ui/button';
 
 const ROLE_PLURALS: Record<Role, string> = { grower: 'growers', mentor: 'mentors', steward: 'stewards' };
@@ -41,30 +42,7 @@ export function RouteErrorBoundary() {
     );
   }
 
-  // A field note that is gone was usually taken out of the library (or its case renamed): what
-  // it was about may still be found by searching.
-  if (status === 404 && pathname.startsWith('/library/')) {
-    return (
-      <ContentLayout title="That Field Library page is not there" lead="It may have been taken out of the library or renamed. Search for what it was about.">
-        <div className="flex flex-wrap gap-3">
-          <Link to="/library" className={buttonClasses('primary')}>
-            Search the Field Library
-          </Link>
-          <Link to="/" className={buttonClasses('secondary')}>
-            Back to the start
-          </Link>
-        </div>
-      </ContentLayout>
-    );
-  }
-
-  if (status === 404) {
-    return (
-      <ContentLayout title="We could not find that page" lead="The link may be old, or the page has moved.">
-        <BackToStart />
-      </ContentLayout>
-    );
-  }
+  if (status === 404) return <NotFoundPage libraryPage={pathname.startsWith('/library/')} />;
 
   if (status === 403) {
     return (
