@@ -181,6 +181,18 @@ export interface CaughtMail {
 }
 
 /** Every list route answers this shape. */
+/** A field note a steward took out of the Field Library and that is still held out (GET /api/steward/library-holds). */
+export interface LibraryHoldItem {
+  caseId: number;
+  title: string;
+  stage: string;
+  heldBy: PersonRef | null;
+  heldAt: string;
+  reason: string;
+  /** Whether the grower still agrees to share it (a steward can put it back only then). */
+  consentToPublish: boolean;
+}
+
 export interface Paged<T> {
   items: T[];
   total: number;

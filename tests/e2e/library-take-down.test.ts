@@ -114,10 +114,21 @@ describe('a steward curating the Field Library', () => {
       await growerPage.getByRole('region', { name: 'Sharing this case' }).getByText(`“${reason}”`, { exact: false }).waitFor(LIVE);
       await growerContext.close();
 
+      // The steward desk lists it among the notes held out, with the reason, linking the case.
+      const desk = await context.newPage();
+      await desk.goto('/steward?tab=library');
+      const item = desk.getByRole('listitem').filter({ has: desk.getByRole('link', { name: title, exact: true }) });
+      await item.waitFor(LIVE);
+      expect(await item.innerText()).toContain(`“${reason}”`);
+      await shot(desk, `library-holds-desk-${name}`);
+
       await page.getByRole('button', { name: 'Put it back in the Field Library' }).click();
       await page.getByText('Shared in the Field Library').waitFor(LIVE);
       await expect.poll(() => held.count(), LIVE).toBe(0);
       expect(await visitorStatus()).toBe(200);
+      await desk.reload();
+      await desk.getByRole('tab', { name: 'Notes held out' }).waitFor(LIVE);
+      await expect.poll(() => item.count(), LIVE).toBe(0);
       await context.close();
     });
   }

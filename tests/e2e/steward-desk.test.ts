@@ -125,7 +125,7 @@ describe('a grower becomes a mentor through the steward desk', () => {
     expect(await page.getByText('The numbers as a table').count()).toBeGreaterThanOrEqual(5);
     await shot(page, 'steward-desk-health-phone');
     expect(await axeProblems(page)).toEqual([]);
-    for (const tab of ['People', 'Reports', 'Audit log']) {
+    for (const tab of ['People', 'Reports', 'Notes held out', 'Audit log']) {
       await page.getByRole('tab', { name: new RegExp(`^${tab}`) }).click();
       await expect.poll(() => page.getByRole('tab', { name: new RegExp(`^${tab}`) }).getAttribute('aria-selected'), SIGNED_IN_WAIT).toBe('true');
     }

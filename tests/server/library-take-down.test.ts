@@ -70,6 +70,10 @@ describe('a steward takes a field note out of the Field Library', () => {
     const steward = await signedIn(t.app, 'steward', 'Oriel Stavewright');
     await steward.browser.post(`/api/library/${slug}/take-down`).set(JSON_HEADERS).send({ reason: REASON }).expect(200);
 
+    // The steward desk lists what is held out, newest first.
+    const holds = await steward.browser.get('/api/steward/library-holds').expect(200);
+    expect(holds.body.items[0]).toMatchObject({ caseId, title: 'FFJ of windfall plums went fizzy', stage: 'FFJ', reason: REASON, consentToPublish: true, heldBy: { id: steward.user.id } });
+
     const byMentor = await mentor.browser.post(`/api/cases/${caseId}/publish`).set(JSON_HEADERS).send({});
     expect(byMentor.status).toBe(409);
     expect(byMentor.body.error).toMatchObject({ code: 'held_by_steward' });
@@ -89,6 +93,8 @@ describe('a steward takes a field note out of the Field Library', () => {
     expect(restored).not.toBeNull();
     expect((await agent(t.app).get(`/api/library/${restored}`)).status).toBe(200);
     expect((await systemLines(caseId)).at(-1)).toBe('Oriel Stavewright put the field note of this case back in the Field Library.');
+    const after = await steward.browser.get('/api/steward/library-holds?pageSize=100').expect(200);
+    expect(after.body.items.map((i: { caseId: number }) => i.caseId)).not.toContain(caseId);
     const audit = await steward.browser.get(`/api/steward/audit?targetType=case&targetId=${caseId}`).expect(200);
     expect(audit.body.items[0]).toMatchObject({ action: 'field_note.restored', detail: { heldFor: REASON } });
 

@@ -162,6 +162,7 @@ const MATRIX: Record<string, Row> = {
   'PATCH /api/steward/users/:id': { fresh: true, path: (f) => `/api/steward/users/${f.targetUserId}`, body: () => ({ role: 'mentor' }), expect: STEWARD_ONLY },
   'GET /api/steward/audit': { path: () => '/api/steward/audit', expect: STEWARD_ONLY },
   'GET /api/steward/mail': { path: () => '/api/steward/mail', expect: STEWARD_ONLY },
+  'GET /api/steward/library-holds': { path: () => '/api/steward/library-holds', expect: STEWARD_ONLY },
   'GET /api/steward/metrics': { path: () => '/api/steward/metrics', expect: STEWARD_ONLY },
   'GET /api/steward/mentor-applications': { path: () => '/api/steward/mentor-applications', expect: STEWARD_ONLY },
   'PATCH /api/steward/mentor-applications/:id': { fresh: true, path: (f) => `/api/steward/mentor-applications/${f.applicationId}`, body: () => ({ decision: 'declined', note: 'Not yet.' }), expect: STEWARD_ONLY },

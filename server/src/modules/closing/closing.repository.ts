@@ -2,6 +2,7 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import type { CaseStatus } from '../../../shared/case-status';
 import type { CheckInView, CloseCaseValues, Outcome, RecoveryReportValues } from '../../../shared/closing-schemas';
+import type { LibraryHoldItem } from '../../../shared/steward-schemas';
 import type { CauseId, RemedyId } from '../../../shared/vocabulary';
 import { getSequelize } from '../../db/sequelize';
 
@@ -120,6 +121,29 @@ export const closingRepository = {
 
   async setRedactTerms(caseId: number, terms: readonly string[], transaction: Transaction): Promise<void> {
     await getSequelize().query(`UPDATE cases SET redact_terms = $2::text[], updated_at = now() WHERE id = $1`, { bind: [caseId, [...terms]], transaction });
+  },
+
+  /** Field notes held out of the Field Library, latest first (the steward desk's list). */
+  async listLibraryHolds(page: number, pageSize: number): Promise<{ items: LibraryHoldItem[]; total: number }> {
+    const sequelize = getSequelize();
+    const rows = await sequelize.query<Omit<LibraryHoldItem, 'heldBy' | 'heldAt'> & { heldById: number | null; heldByName: string | null; heldAt: Date }>(
+      `SELECT c.id AS "caseId", c.title, c.stage, c.library_hold_reason AS reason, c.library_hold_at AS "heldAt",
+              c.consent_to_publish AS "consentToPublish", u.id AS "heldById", u.display_name AS "heldByName"
+         FROM cases c LEFT JOIN users u ON u.id = c.library_hold_by
+        WHERE c.library_hold_reason IS NOT NULL
+        ORDER BY c.library_hold_at DESC, c.id DESC
+        LIMIT $1 OFFSET $2`,
+      { bind: [pageSize, (page - 1) * pageSize], type: QueryTypes.SELECT },
+    );
+    const [{ n }] = await sequelize.query<{ n: string }>(`SELECT count(*) AS n FROM cases WHERE library_hold_reason IS NOT NULL`, { type: QueryTypes.SELECT });
+    return {
+      items: rows.map(({ heldById, heldByName, heldAt, ...row }) => ({
+        ...row,
+        heldBy: heldById != null ? { id: heldById, displayName: heldByName ?? '' } : null,
+        heldAt: new Date(heldAt).toISOString(),
+      })),
+      total: Number(n),
+    };
   },
 
   /** A steward's hold on the field note (null clears it). */

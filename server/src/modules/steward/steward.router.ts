@@ -5,6 +5,7 @@ import { metricsQuerySchema, userChangeSchema } from '../../../shared/steward-sc
 import type { AppContext } from '../../context';
 import { pageQuery, parseId, parseOr400, requireRole, requireUser } from '../../lib/http';
 import { auditRepository } from '../audit/audit';
+import { closingRepository } from '../closing/closing.repository';
 import { usersRepository } from '../users/users.repository';
 import { mailRouter } from '../mail/mail.router';
 import { stewardApplicationsRouter } from '../mentor-applications/mentor-applications.router';
@@ -49,6 +50,13 @@ export function stewardRouter(ctx: AppContext): Router {
   router.get('/audit', async (req, res) => {
     const query = parseOr400(auditQuery, req.query);
     const { items, total } = await auditRepository.list(query);
+    res.json({ items, total, page: query.page, pageSize: query.pageSize });
+  });
+
+  // Field notes taken out of the Field Library and still held out, latest first.
+  router.get('/library-holds', async (req, res) => {
+    const query = parseOr400(pageQuery, req.query);
+    const { items, total } = await closingRepository.listLibraryHolds(query.page, query.pageSize);
     res.json({ items, total, page: query.page, pageSize: query.pageSize });
   });
 

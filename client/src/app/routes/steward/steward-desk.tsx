@@ -1,5 +1,6 @@
 // The steward desk (PRODUCT.md screen 10): community health, mentor applications, people and
-// roles, reported messages, the audit log, and the caught mail while the local catcher runs.
+// roles, reported messages, field notes held out of the library, the audit log, and the caught
+// mail while the local catcher runs.
 import type { QueryClient } from '@tanstack/react-query';
 import { useQuery } from '@tanstack/react-query';
 import { useSearchParams } from 'react-router';
@@ -13,10 +14,11 @@ import { metricsQueryOptions } from '../../../features/steward/api/get-metrics';
 import { AuditLogPanel } from '../../../features/steward/components/audit-log-panel';
 import { CommunityHealth } from '../../../features/steward/components/community-health';
 import { DeskTabs, type DeskTab } from '../../../features/steward/components/desk-tabs';
+import { LibraryHoldsPanel } from '../../../features/steward/components/library-holds-panel';
 import { MailPanel } from '../../../features/steward/components/mail-panel';
 import { PeoplePanel } from '../../../features/steward/components/people-panel';
 
-const TAB_IDS = ['health', 'applications', 'people', 'reports', 'audit', 'mail'] as const;
+const TAB_IDS = ['health', 'applications', 'people', 'reports', 'library', 'audit', 'mail'] as const;
 type TabId = (typeof TAB_IDS)[number];
 
 const PENDING = { status: 'pending', page: 1 } as const;
@@ -44,6 +46,7 @@ export default function StewardDeskRoute() {
     { id: 'applications', label: 'Mentor applications', count: pending.data?.total },
     { id: 'people', label: 'People' },
     { id: 'reports', label: 'Reports', count: open.data?.total },
+    { id: 'library', label: 'Notes held out' },
     { id: 'audit', label: 'Audit log' },
     ...(mail.isSuccess ? [{ id: 'mail' as const, label: 'Mail' }] : []),
   ];
@@ -58,6 +61,7 @@ export default function StewardDeskRoute() {
         {current === 'applications' && <ApplicationsPanel />}
         {current === 'people' && <PeoplePanel />}
         {current === 'reports' && <ReportsPanel />}
+        {current === 'library' && <LibraryHoldsPanel />}
         {current === 'audit' && <AuditLogPanel />}
         {current === 'mail' && <MailPanel />}
       </DeskTabs>

@@ -4,6 +4,7 @@ import { api } from '../../../lib/api-client';
 import { casesKeys } from '../../cases/api/cases-keys';
 import { closingKeys } from '../../closing/api/closing-keys';
 import { threadKeys } from '../../threads/api/thread-keys';
+import { stewardKeys } from '../../steward/api/steward-keys';
 import { libraryKeys } from './library-keys';
 
 /** A steward takes a field note out of the Field Library (POST /api/library/:slug/take-down). */
@@ -24,6 +25,7 @@ export function useTakeDownNote(slug: string) {
         queryClient.invalidateQueries({ queryKey: libraryKeys.lists() }),
         queryClient.invalidateQueries({ queryKey: casesKeys.detail(state.caseId) }),
         queryClient.invalidateQueries({ queryKey: threadKeys.detail(state.caseId) }),
+        queryClient.invalidateQueries({ queryKey: stewardKeys.libraryHolds() }),
       ]);
     },
   });

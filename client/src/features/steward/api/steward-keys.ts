@@ -14,6 +14,8 @@ export const stewardKeys = {
   auditPage: (page: number) => [...stewardKeys.audit(), page] as const,
   metrics: () => [...stewardKeys.all, 'metrics'] as const,
   metricsRange: (range: { from?: string; to?: string }) => [...stewardKeys.metrics(), range] as const,
+  libraryHolds: () => [...stewardKeys.all, 'library-holds'] as const,
+  libraryHoldsPage: (page: number) => [...stewardKeys.libraryHolds(), page] as const,
   mail: () => [...stewardKeys.all, 'mail'] as const,
   mailPage: (page: number) => [...stewardKeys.mail(), page] as const,
 };
