@@ -14,7 +14,7 @@ import {
   type BarShapeProps,
 } from 'recharts';
 import type { MentorLoadRow } from '@shared/steward-schemas';
-import { busiestText } from '../lib/load-words';
+import { busiestText, strongestLead } from '../lib/summary-words';
 import type { OpenByUrgency, RecoveryRate, WeekReplyTimes, WeekStageCounts } from '@shared/metrics';
 import { labelOf, REMEDIES, STAGE_IDS, STAGES, type StageId } from '@shared/vocabulary';
 import { cx } from '../../../components/ui/cx';
@@ -183,6 +183,8 @@ export function RecoveryChart({ title, rates, kind }: { title: string; rates: Re
   const wide = useWideScreen();
   const name = kind === 'stage' ? stageShort : remedyLabel;
   const best = rates[0];
+  // Records ranked first together (the same counts, so the same range) are named together.
+  const tied = best ? rates.filter((r) => r.recovered === best.recovered && r.trials === best.trials) : [];
   const data = rates.map((r) => ({ name: name(r.key), rate: r.rate ?? 0, lower: r.lower, upper: r.upper, range: [r.lower, r.upper] }));
   const labelChars = kind === 'stage' ? 14 : wide ? 22 : 15;
 
@@ -191,7 +193,8 @@ export function RecoveryChart({ title, rates, kind }: { title: string; rates: Re
       <p>No cases ended (recovered or lost) in this range.</p>
     ) : (
       <p>
-        The strongest record is {name(best.key)}: {best.recovered} of {best.trials} recovered ({percent(best.rate)}; the true rate likely lies between{' '}
+        {strongestLead(tied.map((r) => name(r.key)), kind === 'stage' ? 'stages' : 'remedies')}
+        {best.recovered} of {best.trials} recovered{tied.length > 1 ? ' each' : ''} ({percent(best.rate)}; the true rate likely lies between{' '}
         {percent(best.lower)} and {percent(best.upper)}). Each bar spans that likely range (a 95 % Wilson interval) and the dark mark is the rate seen. A short
         record has a long bar, so records are ranked by the low end.
       </p>

@@ -1,7 +1,7 @@
-// The steward desk's reading of the mentors' load: whoever holds the most is named, and a tie
-// at the top names (or counts) everyone in it.
+// The steward desk's readings of its charts: whoever holds the most, and the strongest recovery
+// record, are named; a tie at the top names (or counts) everyone in it.
 import { describe, expect, test } from 'vitest';
-import { busiestText } from '../../client/src/features/steward/lib/load-words';
+import { busiestText, strongestLead } from '../../client/src/features/steward/lib/summary-words';
 
 const load = (displayName: string, open: number, watching: number) => ({ displayName, open, watching });
 
@@ -31,5 +31,14 @@ describe('the busiest mentor in words', () => {
   test('when nobody holds an open case, or there are no mentors, then there is nothing to say', () => {
     expect(busiestText([load('Tobiah Mossgrove', 0, 2)])).toBe('');
     expect(busiestText([])).toBe('');
+  });
+});
+
+describe('the strongest recovery record in words', () => {
+  test('when one record leads, or two or three share the top counts, or more do, then the lead names, lists or counts them', () => {
+    expect(strongestLead(['FFJ'], 'stages')).toBe('The strongest record is FFJ: ');
+    expect(strongestLead(['FFJ', 'LAB'], 'stages')).toBe('The strongest records are FFJ and LAB: ');
+    expect(strongestLead(['FFJ', 'LAB', 'OHN'], 'stages')).toBe('The strongest records are FFJ, LAB and OHN: ');
+    expect(strongestLead(['FFJ', 'LAB', 'OHN', 'WCA', 'WCS'], 'remedies')).toBe('5 remedies share the strongest record: ');
   });
 });

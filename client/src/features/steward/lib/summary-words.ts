@@ -1,13 +1,13 @@
-// The steward's one-line reading of the mentors' load chart. The busiest holds the most open
-// cases, then the most watching (the order of `mentorLoad` in server/shared/metrics.ts); when
-// several share the top, the line names them all (or counts them), instead of crowning whichever
-// sorted first.
+// The steward desk's one-line readings of its charts, where several may share the top: the
+// busiest mentor (most open cases, then most watching: the order of `mentorLoad` in
+// server/shared/metrics.ts) and the strongest recovery record. A tie names everyone in it (or
+// counts them past three) instead of crowning whichever sorted first.
 import type { MentorLoad } from '@shared/metrics';
 
 type Load = Pick<MentorLoad, 'open' | 'watching'> & { displayName: string };
 
 /** The names as a list in words: "A", "A and B", "A, B and C". */
-function inWords(names: readonly string[]): string {
+export function inWords(names: readonly string[]): string {
   return names.length <= 1 ? (names[0] ?? '') : `${names.slice(0, -1).join(', ')} and ${names.at(-1)}`;
 }
 
@@ -20,4 +20,12 @@ export function busiestText(loads: readonly Load[]): string {
   if (tied.length === 1) return `the busiest is ${top.displayName} with ${counts}`;
   if (tied.length <= 3) return `the busiest are ${inWords(tied.map((l) => l.displayName))}, with ${counts} each`;
   return `${tied.length} of them share the most, ${counts} each`;
+}
+
+/** How the recovery summary starts: "The strongest record is FFJ: " / "The strongest records are
+ * FFJ and LAB: " / "5 stages share the strongest record: ". `names` are those with the top counts. */
+export function strongestLead(names: readonly string[], plural: string): string {
+  if (names.length <= 1) return `The strongest record is ${names[0] ?? ''}: `;
+  if (names.length <= 3) return `The strongest records are ${inWords(names)}: `;
+  return `${names.length} ${plural} share the strongest record: `;
 }
