@@ -101,6 +101,8 @@ describe('a steward curating the Field Library', () => {
       await page.waitForURL(`**/cases/${caseId}`, LIVE);
       const held = page.locator('p', { hasText: /^Out of the Field Library:/ });
       await held.waitFor(LIVE);
+      // A recovered case waits on nobody: its header shows no urgency.
+      expect(await page.getByText(/^(High|Medium|Low) urgency/).count()).toBe(0);
       expect(await held.innerText()).toContain(`“${reason}”`);
       const log = page.getByRole('log', { name: 'Messages' });
       await expect.poll(() => log.getByText(`took the field note of this case out of the Field Library: “${reason}”`, { exact: false }).count(), LIVE).toBe(1);

@@ -1,6 +1,6 @@
 import { Link } from 'react-router';
 import type { CaseDetail } from '@shared/case-schemas';
-import { STATUS_LABELS, type CaseStatus } from '@shared/case-status';
+import { OPEN_STATUSES, STATUS_LABELS, type CaseStatus } from '@shared/case-status';
 import { SUGAR_TYPES } from '@shared/batch-check-model';
 import { formatMass } from '@shared/units';
 import type { UrgencyLevel } from '@shared/urgency';
@@ -48,12 +48,15 @@ export function CaseHeader({ detail, viewerId }: { detail: CaseDetail; viewerId:
             <span className="sr-only">Status: </span>
             {STATUS_LABELS[detail.status]}
           </span>
-          <span
-            className={cx('rounded-full border-2 px-3 py-0.5 font-extrabold', URGENCY_TONES[detail.urgencyLevel])}
-            title={`Urgency score ${detail.urgency} of 100`}
-          >
-            {URGENCY_LABELS[detail.urgencyLevel]} <span className="font-semibold">({detail.urgency})</span>
-          </span>
+          {/* Urgency orders the rounds; once the case is closed nobody is waiting on it. */}
+          {OPEN_STATUSES.includes(detail.status) && (
+            <span
+              className={cx('rounded-full border-2 px-3 py-0.5 font-extrabold', URGENCY_TONES[detail.urgencyLevel])}
+              title={`Urgency score ${detail.urgency} of 100`}
+            >
+              {URGENCY_LABELS[detail.urgencyLevel]} <span className="font-semibold">({detail.urgency})</span>
+            </span>
+          )}
           <span className="rounded-full border-2 border-line bg-rice-deep px-3 py-0.5 font-bold">{labelOf(STAGES, detail.stage)}</span>
         </div>
         <p className="text-loam-soft">
