@@ -68,6 +68,10 @@ describe('going to the conversation', () => {
       await signInByApi(context, grower.email, grower.password);
       const page = await context.newPage();
       await page.goto('/batches');
+      // The shelf's list of cases says so too, and its link goes to the conversation.
+      const listed = page.getByRole('link', { name: `${title} 1 new message`, exact: true });
+      await listed.waitFor(LIVE);
+      expect(await listed.getAttribute('href')).toBe(`/cases/${id}#conversation`);
       const badge = page.getByRole('button', { name: /new message in your cases/ }).locator('visible=true');
       await badge.click(LIVE);
       await page.getByRole('link', { name: new RegExp(`^${title}\\s*1 new$`) }).click(LIVE);
