@@ -38,10 +38,14 @@ describe('batch shelf', () => {
       await expect.poll(() => page.getByRole('link', { name: `Open a case about ${without!.label}`, exact: true }).isVisible(), WAIT).toBe(true);
       expect(await page.getByRole('link', { name: `Open another case about ${without!.label}`, exact: true }).count()).toBe(0);
 
-      // The way back is the case's own title, right on the shelf.
+      // The way back is the case's own title, right on the shelf; it opens at the conversation,
+      // where new signs are told.
+      const composer = page.getByRole('textbox', { name: /^Write to / });
       await page.getByRole('link', { name: withCase!.openCase!.title, exact: true }).first().click();
-      await page.waitForURL(`**/cases/${withCase!.openCase!.id}`, WAIT);
-      await expect.poll(() => page.getByRole('heading', { level: 1, name: withCase!.openCase!.title }).isVisible(), WAIT).toBe(true);
+      await page.waitForURL(`**/cases/${withCase!.openCase!.id}#conversation`, WAIT);
+      await expect.poll(() => page.getByRole('heading', { level: 1, name: withCase!.openCase!.title }).count(), WAIT).toBe(1);
+      await expect.poll(() => composer.isVisible(), WAIT).toBe(true);
+      await expect.poll(() => composer.evaluate((el) => { const r = el.getBoundingClientRect(); return r.top >= 0 && r.bottom <= window.innerHeight; }), WAIT).toBe(true);
 
       // Choosing to open another: the form says a case is open and leads back to it as well.
       await page.goBack();
@@ -50,7 +54,8 @@ describe('batch shelf', () => {
       const notice = page.getByRole('region', { name: 'This batch already has a case open' });
       await expect.poll(() => notice.isVisible(), WAIT).toBe(true);
       await notice.getByRole('link', { name: withCase!.openCase!.title, exact: true }).click();
-      await page.waitForURL(`**/cases/${withCase!.openCase!.id}`, WAIT);
+      await page.waitForURL(`**/cases/${withCase!.openCase!.id}#conversation`, WAIT);
+      await expect.poll(() => composer.evaluate((el) => { const r = el.getBoundingClientRect(); return r.top >= 0 && r.bottom <= window.innerHeight; }), WAIT).toBe(true);
 
       // The batch's own page says the same.
       await page.goto(`/batches/${withCase!.id}`);

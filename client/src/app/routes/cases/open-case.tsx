@@ -11,6 +11,7 @@ import { useBatches } from '../../../features/batches/api/get-batches';
 import { formatMadeOn } from '../../../features/batches/lib/batch-format';
 import { openCasesOf } from '../../../features/batches/lib/open-cases';
 import { batchParamOf } from './open-case.loader';
+import { conversationPath } from '@shared/case-links';
 
 // The form is a chunk of its own (with the form library, the schemas and the live check), fetched
 // once the page has been painted (AfterFirstPaint): the heading and the lead, the page's largest
@@ -102,7 +103,8 @@ function StillOpen({ batch }: { batch: BatchView }) {
       <ul className="mt-1 flex flex-col gap-1">
         {open.map((c) => (
           <li key={c.id}>
-            <Link to={`/cases/${c.id}`} className="font-bold">
+            {/* Straight to its conversation, where the new signs are to be told. */}
+            <Link to={conversationPath(c.id)} className="font-bold">
               {c.title}
             </Link>{' '}
             <span className="text-loam-soft">({STATUS_LABELS[c.status].toLowerCase()})</span>

@@ -15,6 +15,7 @@ import { cx } from '../../../components/ui/cx';
 import { RiskBadge } from '../../batch-check/components/risk-badge';
 import { ratioText } from '../../batch-check/components/ratio-text';
 import { ageText, formatMadeOn } from '../lib/batch-format';
+import { conversationPath } from '@shared/case-links';
 
 interface ShelfRow {
   batch: BatchView;
@@ -61,13 +62,14 @@ const columns = [
   }),
 ];
 
-/** The batch's case still being worked on, so the grower goes back to it rather than opening another. */
+/** The batch's case still being worked on, so the grower goes back to it (to its conversation,
+ * where new signs are told) rather than opening another. */
 function OpenCaseLine({ batch }: { batch: BatchView }) {
   if (!batch.openCase) return null;
   return (
     <p className="mt-1 text-base">
       <span className="font-semibold text-clay-deep">{STATUS_LABELS[batch.openCase.status]}:</span>{' '}
-      <Link to={`/cases/${batch.openCase.id}`}>{batch.openCase.title}</Link>
+      <Link to={conversationPath(batch.openCase.id)}>{batch.openCase.title}</Link>
     </p>
   );
 }
