@@ -1,6 +1,7 @@
 import { lazy } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { Link, useNavigate, useSearchParams } from 'react-router';
+import { conversationPath } from '@shared/case-links';
 import type { BatchView } from '@shared/case-schemas';
 import { STATUS_LABELS } from '@shared/case-status';
 import { ContentLayout } from '../../../components/layouts/content-layout';
@@ -11,7 +12,6 @@ import { useBatches } from '../../../features/batches/api/get-batches';
 import { formatMadeOn } from '../../../features/batches/lib/batch-format';
 import { openCasesOf } from '../../../features/batches/lib/open-cases';
 import { batchParamOf } from './open-case.loader';
-import { conversationPath } from '@shared/case-links';
 
 // The form is a chunk of its own (with the form library, the schemas and the live check), fetched
 // once the page has been painted (AfterFirstPaint): the heading and the lead, the page's largest

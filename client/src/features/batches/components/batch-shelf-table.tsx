@@ -8,6 +8,7 @@ import {
   useReactTable,
   type SortingState,
 } from '@tanstack/react-table';
+import { conversationPath } from '@shared/case-links';
 import { STAGE_SUGAR_RULES } from '@shared/batch-check-model';
 import { STATUS_LABELS } from '@shared/case-status';
 import type { BatchCheckSummary, BatchView } from '@shared/case-schemas';
@@ -15,7 +16,6 @@ import { cx } from '../../../components/ui/cx';
 import { RiskBadge } from '../../batch-check/components/risk-badge';
 import { ratioText } from '../../batch-check/components/ratio-text';
 import { ageText, formatMadeOn } from '../lib/batch-format';
-import { conversationPath } from '@shared/case-links';
 
 interface ShelfRow {
   batch: BatchView;
