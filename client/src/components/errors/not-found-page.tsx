@@ -9,22 +9,24 @@ import { buttonClasses } from '../ui/button';
  */
 export function NotFoundPage({ libraryPage = false }: { libraryPage?: boolean }) {
   const search = (
-    <Link key="search" to="/library" className={buttonClasses(libraryPage ? 'primary' : 'secondary')}>
+    <Link to="/library" className={buttonClasses(libraryPage ? 'primary' : 'secondary')}>
       Search the Field Library
     </Link>
   );
   const start = (
-    <Link key="start" to="/" className={buttonClasses(libraryPage ? 'secondary' : 'primary')}>
+    <Link to="/" className={buttonClasses(libraryPage ? 'secondary' : 'primary')}>
       Back to the start
     </Link>
   );
-  return libraryPage ? (
-    <ContentLayout title="That Field Library page is not there" lead="It may have been taken out of the library or renamed. Search for what it was about.">
-      <div className="flex flex-wrap gap-3">{[search, start]}</div>
-    </ContentLayout>
-  ) : (
-    <ContentLayout title="We could not find that page" lead="The link may be old, or the page has moved.">
-      <div className="flex flex-wrap gap-3">{[start, search]}</div>
+  return (
+    <ContentLayout
+      title={libraryPage ? 'That Field Library page is not there' : 'We could not find that page'}
+      lead={libraryPage ? 'It may have been taken out of the library or renamed. Search for what it was about.' : 'The link may be old, or the page has moved.'}
+    >
+      <div className="flex flex-wrap gap-3">
+        {libraryPage ? search : start}
+        {libraryPage ? start : search}
+      </div>
     </ContentLayout>
   );
 }

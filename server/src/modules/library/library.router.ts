@@ -4,14 +4,13 @@
 //   GET /api/library/:slug/photos/:photoId(/thumb)                      → a photo the note lists
 //   POST /api/library/:slug/take-down  a steward { reason }              → the case's ClosingState
 import { Router, type Response } from 'express';
+import { takeDownSchema } from '../../../shared/closing-schemas';
 import { libraryQuerySchema } from '../../../shared/library-query';
 import type { AppContext } from '../../context';
-import { takeDownSchema } from '../../../shared/closing-schemas';
-import { parseId, parseOr400, requireUser } from '../../lib/http';
-import { forbidden } from '../../lib/errors';
-import { takeOutOfLibrary } from '../closing/closing.service';
-import { createPhotoStore } from '../../lib/photo-store';
 import { notFound } from '../../lib/errors';
+import { parseId, parseOr400, requireRole, requireUser } from '../../lib/http';
+import { createPhotoStore } from '../../lib/photo-store';
+import { takeOutOfLibrary } from '../closing/closing.service';
 import { getLibraryEntry, noteCaseId, notePhotoKey, searchLibrary } from './library.service';
 
 export function libraryRouter(ctx: AppContext): Router {
@@ -29,9 +28,8 @@ export function libraryRouter(ctx: AppContext): Router {
 
   // Curating the library: a steward takes a field note out (its case keeps everything; a steward
   // can put the note back from the case page). Guides come from the knowledge/ folder instead.
-  router.post('/:slug/take-down', async (req, res) => {
+  router.post('/:slug/take-down', requireRole('steward'), async (req, res) => {
     const user = requireUser(req);
-    if (user.role !== 'steward') throw forbidden('Only a steward can take a field note out of the Field Library.');
     const { reason } = parseOr400(takeDownSchema, req.body, 'Taking the note out needs a reason.');
     const caseId = await noteCaseId(String(req.params.slug));
     res.json(await takeOutOfLibrary(ctx, user, caseId, reason));

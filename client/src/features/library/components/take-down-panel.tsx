@@ -6,31 +6,13 @@ import { Link } from 'react-router';
 import { LIBRARY_HOLD_REASON_MAX } from '@shared/moderation-limits';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
-import { isApiError } from '../../../lib/api-client';
-import { ConfirmDialog } from '../../steward/components/confirm-dialog';
-import { TextAreaField } from '../../steward/components/form-controls';
+import { ReasonDialog } from '../../steward/components/reason-dialog';
 import { useTakeDownNote } from '../api/take-down-note';
 
 export function TakeDownPanel({ slug }: { slug: string }) {
   const headingId = useId();
   const [open, setOpen] = useState(false);
-  const [reason, setReason] = useState('');
-  const [problem, setProblem] = useState<string | undefined>();
   const takeDown = useTakeDownNote(slug);
-
-  const send = async () => {
-    const { takeDownSchema } = await import('@shared/closing-schemas');
-    const parsed = takeDownSchema.safeParse({ reason });
-    if (!parsed.success) {
-      setProblem(parsed.error.issues[0]?.message);
-      return;
-    }
-    setProblem(undefined);
-    takeDown.mutate(parsed.data.reason, {
-      onSuccess: () => setOpen(false),
-      onError: (error) => setProblem(isApiError(error) ? error.fields?.reason : undefined),
-    });
-  };
 
   if (takeDown.isSuccess) {
     const state = takeDown.data;
@@ -54,34 +36,25 @@ export function TakeDownPanel({ slug }: { slug: string }) {
       <Button variant="secondary" className="self-start" onClick={() => setOpen(true)}>
         Take it out of the library
       </Button>
-      <ConfirmDialog
+      <ReasonDialog
         open={open}
         title="Take this note out of the Field Library"
+        label="Why does it come out?"
+        maxLength={LIBRARY_HOLD_REASON_MAX}
         confirmLabel="Take it out"
         confirmVariant="danger"
+        loadSchema={() => import('@shared/closing-schemas').then((m) => m.takeDownSchema)}
         busy={takeDown.isPending}
-        onConfirm={() => void send()}
+        error={takeDown.error}
+        failedTitle="The note is still in the library"
+        onSend={(reason) => takeDown.mutate(reason, { onSuccess: () => setOpen(false) })}
         onCancel={() => {
           setOpen(false);
-          setProblem(undefined);
           takeDown.reset();
         }}
       >
         <p>The grower and the mentor see your reason in the case’s thread; it also goes into the audit log.</p>
-        <TextAreaField
-          label="Why does it come out?"
-          value={reason}
-          maxLength={LIBRARY_HOLD_REASON_MAX}
-          rows={3}
-          onChange={(e) => setReason(e.target.value)}
-          error={problem}
-        />
-        {takeDown.isError && !(isApiError(takeDown.error) && takeDown.error.fields?.reason) && (
-          <Alert tone="danger" title="The note is still in the library">
-            {takeDown.error.message}
-          </Alert>
-        )}
-      </ConfirmDialog>
+      </ReasonDialog>
     </section>
   );
 }
