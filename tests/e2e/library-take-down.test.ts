@@ -1,12 +1,13 @@
 // Curating the Field Library in the browser: the demo steward, on a field note's page, takes the
 // note out with a reason; visitors no longer find it; the case page says who took it out and why,
-// to the steward (who can put it back) and to the grower. The note is made for the test by a
-// fresh grower and mentor, so the demo notes stay as seeded.
+// to the steward (who can put it back) and to the grower, who is mailed the reason. The note is
+// made for the test by a fresh grower and mentor, so the demo notes stay as seeded.
 import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import type { Browser, BrowserContext } from 'playwright-core';
 import { baseUrl, DESKTOP, launch, newContext, PHONE, shot } from './browser';
 import { freshPerson, signInByApi, type FreshPerson } from './fresh-people';
+import { openMailbox } from './journey-helpers';
 
 const LIVE = { timeout: 15_000 };
 const JSON_CALL = { Origin: baseUrl(), 'Content-Type': 'application/json' };
@@ -107,13 +108,26 @@ describe('a steward curating the Field Library', () => {
       const log = page.getByRole('log', { name: 'Messages' });
       await expect.poll(() => log.getByText(`took the field note of this case out of the Field Library: “${reason}”`, { exact: false }).count(), LIVE).toBe(1);
 
-      // The grower reads the same on their case page.
+      // The grower is mailed the reason, and the mail's link opens their case page, which says the same.
+      const mailbox = await openMailbox();
+      const mailed = await mailbox.linkIn(grower.email, /^Your field note is out of the Field Library/, /^\/cases\/\d+$/);
+      await mailbox.dispose();
+      expect(mailed.mail.text).toContain(`The reason given: “${reason}”`);
+      expect(mailed.path).toBe(`/cases/${caseId}`);
       const growerContext = await newContext(browser, device);
       await signInByApi(growerContext, grower.email, grower.password);
       const growerPage = await growerContext.newPage();
-      await growerPage.goto(`/cases/${caseId}`);
+      await growerPage.goto(mailed.path);
       await growerPage.getByRole('heading', { level: 1, name: title }).waitFor(LIVE);
-      await growerPage.getByRole('region', { name: 'Sharing this case' }).getByText(`“${reason}”`, { exact: false }).waitFor(LIVE);
+      const sharing = growerPage.getByRole('region', { name: 'Sharing this case' });
+      await sharing.getByText(`“${reason}”`, { exact: false }).waitFor(LIVE);
+      expect(await sharing.innerText()).toContain('it stays out until a steward puts it back');
+      // Once the grower stops sharing, it is their choice that keeps the note out; sharing again hands it back to the steward.
+      await sharing.getByRole('button', { name: 'Stop sharing it' }).click();
+      await sharing.getByText('since you no longer agree to share this case, it stays out', { exact: false }).waitFor(LIVE);
+      await shot(growerPage, `library-take-down-grower-${name}`);
+      await sharing.getByRole('button', { name: 'Share it as a field note' }).click();
+      await sharing.getByText('it stays out until a steward puts it back', { exact: false }).waitFor(LIVE);
       await growerContext.close();
 
       // The steward desk lists it among the notes held out, with the reason, linking the case.

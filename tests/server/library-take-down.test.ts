@@ -1,12 +1,12 @@
 // Curating the Field Library: a steward takes a field note out, saying why. The note is gone for
 // everyone, the case's thread and the audit log say who and why, and it stays out (the mentor's
 // re-publish is refused, the grower's consent given again does not bring it back) until a steward
-// publishes it again.
+// publishes it again. The grower is mailed when it goes out and when it comes back.
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import { getSequelize } from '../../server/src/db/sequelize';
 import { agent, makeTestApp, type TestApp } from '../setup/test-app';
-import { closeAs, reportAs, systemLines, talkedCase } from '../factories/closing';
+import { closeAs, mailTo, reportAs, systemLines, talkedCase } from '../factories/closing';
 import { JSON_HEADERS, signedIn } from '../factories/sign-in';
 
 let t: TestApp;
@@ -60,9 +60,15 @@ describe('a steward takes a field note out of the Field Library', () => {
     const audit = await steward.browser.get(`/api/steward/audit?targetType=case&targetId=${caseId}`).expect(200);
     expect(audit.body.items[0]).toMatchObject({ action: 'field_note.taken_down', actor: { id: steward.user.id }, detail: { slug, reason: REASON } });
 
-    // The grower is told in their own view of the case, reason included.
+    // The grower is told in their own view of the case, reason included, and by mail.
     const seen = await grower.browser.get(`/api/cases/${caseId}/closing`).expect(200);
     expect(seen.body).toMatchObject({ published: false, consentToPublish: true, libraryHold: { reason: REASON }, can: { takeDown: false, publish: false } });
+    const mails = (await mailTo(grower.user.email)).filter((m) => m.kind === 'note_taken_out');
+    expect(mails).toHaveLength(1);
+    expect(mails[0].subject).toBe('Your field note is out of the Field Library: “FFJ of windfall plums went fizzy”');
+    expect(mails[0].body_text).toContain('Oriel Stavewright, a steward of the Field Library, took the field note of your case');
+    expect(mails[0].body_text).toContain(`The reason given: “${REASON}”`);
+    expect(mails[0].body_text).toContain(`/cases/${caseId}\n`);
   });
 
   test('when the note is held out, then the mentor cannot put it back, the grower consenting again does not, and a steward publishing it again lifts the hold', async () => {
@@ -93,6 +99,12 @@ describe('a steward takes a field note out of the Field Library', () => {
     expect(restored).not.toBeNull();
     expect((await agent(t.app).get(`/api/library/${restored}`)).status).toBe(200);
     expect((await systemLines(caseId)).at(-1)).toBe('Oriel Stavewright put the field note of this case back in the Field Library.');
+    const mailed = await mailTo(grower.user.email);
+    expect(mailed.filter((m) => m.kind === 'note_taken_out')).toHaveLength(1);
+    const putBack = mailed.filter((m) => m.kind === 'note_put_back');
+    expect(putBack).toHaveLength(1);
+    expect(putBack[0].subject).toBe('Your field note is back in the Field Library: “FFJ of windfall plums went fizzy”');
+    expect(putBack[0].body_text).toContain('You can stop sharing it at any time');
     const after = await steward.browser.get('/api/steward/library-holds?pageSize=100').expect(200);
     expect(after.body.items.map((i: { caseId: number }) => i.caseId)).not.toContain(caseId);
     const audit = await steward.browser.get(`/api/steward/audit?targetType=case&targetId=${caseId}`).expect(200);
@@ -123,11 +135,14 @@ describe('a steward takes a field note out of the Field Library', () => {
     }
     expect((await agent(t.app).post(`/api/library/${slug}/take-down`).set(JSON_HEADERS).send({ reason: REASON })).status).toBe(401);
     expect(await slugOf(caseId)).toBe(slug);
+    const heldMails = async () => (await mailTo(grower.user.email)).filter((m) => m.kind === 'note_taken_out').length;
+    expect(await heldMails()).toBe(0);
 
     await steward.browser.post(`/api/library/${slug}/take-down`).set(JSON_HEADERS).send({ reason: REASON }).expect(200);
     const twice = await steward.browser.post(`/api/library/${slug}/take-down`).set(JSON_HEADERS).send({ reason: REASON });
     expect(twice.status).toBe(404);
     const lines = await systemLines(caseId);
     expect(lines.filter((l) => l.includes('out of the Field Library')).length).toBe(1);
+    expect(await heldMails()).toBe(1);
   });
 });

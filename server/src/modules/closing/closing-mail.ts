@@ -86,3 +86,51 @@ export async function queueCheckInMail(
     transaction,
   );
 }
+
+export function casePageUrl(publicUrl: string, caseId: number): string {
+  return `${publicUrl}/cases/${caseId}`;
+}
+
+/**
+ * A steward took the grower's field note out of the Field Library, or put it back: the grower
+ * shared it, so they are told, with the reason given. `heldAt` keys the mail to that one hold.
+ */
+export async function queueLibraryHoldMail(
+  input: { publicUrl: string; caseId: number; title: string; to: string; growerName: string; stewardName: string; reason: string; heldAt: Date; change: 'taken_out' | 'put_back' },
+  transaction: Transaction,
+): Promise<boolean> {
+  const takenOut = input.change === 'taken_out';
+  const lines = takenOut
+    ? [
+        `Hello ${input.growerName},`,
+        '',
+        `${input.stewardName}, a steward of the Field Library, took the field note of your case “${input.title}” out of the library. Nobody finds it there or among batches like theirs until a steward puts it back.`,
+        '',
+        `The reason given: “${input.reason}”`,
+        '',
+        'Your case, its advice and its conversation stay on your case page, and you still choose whether it is shared:',
+        casePageUrl(input.publicUrl, input.caseId),
+        '',
+        '— Sporewell',
+      ]
+    : [
+        `Hello ${input.growerName},`,
+        '',
+        `${input.stewardName}, a steward of the Field Library, put the field note of your case “${input.title}” back in the library, where other growers can read it again, without your name, e-mail or place.`,
+        '',
+        'You can stop sharing it at any time from your case page:',
+        casePageUrl(input.publicUrl, input.caseId),
+        '',
+        '— Sporewell',
+      ];
+  return enqueueMail(
+    {
+      to: input.to,
+      subject: takenOut ? `Your field note is out of the Field Library: “${input.title}”` : `Your field note is back in the Field Library: “${input.title}”`,
+      text: lines.join('\n'),
+      kind: takenOut ? 'note_taken_out' : 'note_put_back',
+      dedupeKey: `library-hold:${input.caseId}:${input.heldAt.toISOString()}:${input.change}`,
+    },
+    transaction,
+  );
+}

@@ -15,7 +15,8 @@
 //   never without the grower's consent (409).
 // - A steward may take a published field note out of the Field Library, saying why (a system
 //   line and the audit log keep the reason). It stays out, whatever the mentor re-publishes or the
-//   grower consents to again, until a steward publishes it again, which lifts the hold.
+//   grower consents to again, until a steward publishes it again, which lifts the hold. The grower
+//   is mailed when it is taken out (with the reason) and when it is put back.
 // - Close as lost: a steward, on a case watching for at least LOST_AFTER_DAYS since closing with
 //   no report. It records no outcome, so it counts in no track record, and it is not published.
 // Every change is one transaction (case row locked first), with its system line; the live update
@@ -43,7 +44,7 @@ import { writeSystemLine } from '../threads/messages.service';
 import { closedLine, recoveryReportLine } from '../threads/system-lines';
 import { publishChange, type ThreadChange } from '../threads/thread-events';
 import { setWaiting, urgencyNow } from '../threads/urgency-recompute';
-import { queueClosedMail } from './closing-mail';
+import { queueClosedMail, queueLibraryHoldMail } from './closing-mail';
 import { closingRepository as repo, type ClosingRow } from './closing.repository';
 
 const CLOSABLE = new Set(['in_conversation', 'over_to_grower']);
@@ -258,13 +259,22 @@ export async function republish(ctx: AppContext, user: Express.User, caseId: num
     if (held) {
       await repo.setLibraryHold(caseId, null, t);
       await audit(user.id, 'field_note.restored', { type: 'case', id: caseId }, { heldFor: row.libraryHoldReason }, t);
+      await queueLibraryHoldMail(
+        { ...holdMailOf(ctx, row, user), reason: row.libraryHoldReason!, heldAt: row.libraryHoldAt ?? new Date(), change: 'put_back' },
+        t,
+      );
       return { line: `${user.displayName} put the field note of this case back in the Field Library.` };
     }
     return { line: `${user.displayName} ${wasPublished ? 'updated' : 'published'} the field note of this case.` };
   });
 }
 
-/** A steward takes a case's published field note out of the Field Library, saying why. */
+/** What every mail about a steward's hold on a case's field note says of the case and its people. */
+function holdMailOf(ctx: AppContext, row: ClosingRow, steward: Express.User) {
+  return { publicUrl: ctx.config.publicUrl, caseId: row.id, title: row.title, to: row.growerEmail, growerName: row.growerName, stewardName: steward.displayName };
+}
+
+/** A steward takes a case's published field note out of the Field Library, saying why; the grower is mailed. */
 export async function takeOutOfLibrary(ctx: AppContext, user: Express.User, caseId: number, reason: string): Promise<ClosingState> {
   return run(ctx, user, caseId, async (row, t) => {
     if (user.role !== 'steward') throw forbidden('Only a steward can take a field note out of the Field Library.');
@@ -273,6 +283,7 @@ export async function takeOutOfLibrary(ctx: AppContext, user: Express.User, case
     await unpublishFieldNote(caseId, t);
     await repo.setLibraryHold(caseId, { stewardId: user.id, reason }, t);
     await audit(user.id, 'field_note.taken_down', { type: 'case', id: caseId }, { slug, reason }, t);
+    await queueLibraryHoldMail({ ...holdMailOf(ctx, row, user), reason, heldAt: new Date(), change: 'taken_out' }, t);
     return { line: `${user.displayName} took the field note of this case out of the Field Library: “${reason}”` };
   });
 }

@@ -79,17 +79,33 @@ export function ClosingRecord({ state }: { state: ClosingState }) {
         </p>
       )}
       {/* The grower reads this in their own "Sharing this case" section. */}
-      {state.libraryHold && !state.can.changeConsent && <LibraryHoldText hold={state.libraryHold} />}
+      {state.libraryHold && !state.can.changeConsent && <LibraryHoldText hold={state.libraryHold} consentToPublish={state.consentToPublish} reader="staff" />}
     </div>
   );
 }
 
-/** Who took the field note out of the Field Library, when, and why. */
-export function LibraryHoldText({ hold }: { hold: NonNullable<ClosingState['libraryHold']> }) {
+/**
+ * Who took the field note out of the Field Library, when, and why, and what keeps it out: the hold
+ * alone while the grower still agrees to share the case, or (once they no longer do) their choice.
+ */
+export function LibraryHoldText({
+  hold,
+  consentToPublish,
+  reader,
+}: {
+  hold: NonNullable<ClosingState['libraryHold']>;
+  consentToPublish: boolean;
+  reader: 'grower' | 'staff';
+}) {
+  const staysOut = consentToPublish
+    ? 'it stays out until a steward puts it back'
+    : reader === 'grower'
+      ? 'since you no longer agree to share this case, it stays out'
+      : 'the grower no longer agrees to share the case, so it stays out';
   return (
     <p>
       <span className="font-bold">Out of the Field Library:</span> {hold.by?.displayName ?? 'A steward'} took the field note out on {dayText(hold.at)}
-      ; it stays out until a steward puts it back. The reason given: “{hold.reason}”
+      ; {staysOut}. The reason given: “{hold.reason}”
     </p>
   );
 }

@@ -42,7 +42,7 @@ export function RecoveryPrompt({ caseId }: { caseId: number }) {
         Sharing this case
       </h2>
       {state.libraryHold ? (
-        <LibraryHoldText hold={state.libraryHold} />
+        <LibraryHoldText hold={state.libraryHold} consentToPublish={state.consentToPublish} reader="grower" />
       ) : state.published && state.noteSlug ? (
         <p>
           This case is in the Field Library as an anonymised field note: <Link to={`/library/${state.noteSlug}`}>read it</Link>. You can stop
