@@ -44,9 +44,12 @@ function useLiveRounds(): void {
       }, 800);
     };
     socket.on('case:updated', refresh);
+    // A message on a case the mentor holds: its row's last message (and its "new" count) change.
+    socket.on('unread', refresh);
     socket.on('connect', refresh);
     return () => {
       socket.off('case:updated', refresh);
+      socket.off('unread', refresh);
       socket.off('connect', refresh);
       if (timer.current) clearTimeout(timer.current);
       timer.current = null;

@@ -4,10 +4,12 @@ import { createContext, useContext, useMemo } from 'react';
 import { Link } from 'react-router';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type Row } from '@tanstack/react-table';
 import type { CaseListItem } from '@shared/case-schemas';
+import { conversationPath } from '@shared/case-links';
 import { OPEN_STATUSES, STATUS_LABELS } from '@shared/case-status';
 import { Button } from '../../../components/ui/button';
 import { cx } from '../../../components/ui/cx';
 import { useClaimCase } from '../../threads/api/claim-case';
+import { useUnread } from '../../threads/api/get-unread';
 import { hoursWords, timeAgo } from '../../threads/lib/time-words';
 import { bySeriousness, symptomShort } from '../lib/symptom-words';
 import type { RoundsSort } from '../lib/rounds-filters';
@@ -54,6 +56,21 @@ function ClaimButton({ item }: { item: CaseListItem }) {
 }
 
 /**
+ * On a case the mentor holds, what the grower wrote since the mentor last read it: a link of its
+ * own, straight to the conversation (the case's own link still opens the case at its top). The
+ * counts are the header badge's.
+ */
+function NewMessages({ caseId }: { caseId: number }) {
+  const fresh = useUnread(true).data?.byCase[String(caseId)] ?? 0;
+  if (fresh === 0) return null;
+  return (
+    <Link to={conversationPath(caseId)} className="mt-1 inline-block rounded-full bg-moss px-2 text-sm font-extrabold text-rice no-underline">
+      {fresh} new<span className="sr-only"> {fresh === 1 ? 'message' : 'messages'} in this conversation</span>
+    </Link>
+  );
+}
+
+/**
  * A claimed case's button goes away (and is disabled while the claim is under way), which would
  * drop keyboard focus to the start of the page; it goes to the case just taken instead, unless
  * the person has already moved on to something else.
@@ -91,6 +108,7 @@ export function RoundsTable({ items, sort, myUserId }: { items: CaseListItem[]; 
             <p className="text-sm text-loam-soft">
               {row.original.grower.displayName} · opened {timeAgo(row.original.openedAt)}
             </p>
+            <NewMessages caseId={row.original.id} />
           </div>
         ),
       }),

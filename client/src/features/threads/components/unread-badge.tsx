@@ -24,13 +24,10 @@ function useUnreadHints(): void {
     wired.add(socket);
     const refresh = () => void queryClient.invalidateQueries({ queryKey: threadKeys.unread() });
     socket.on('unread', refresh);
-    // Anything may have arrived while the connection was down: ask again on a reconnect. Not on
-    // the first connect, which comes while the page's own first ask is still fresh.
-    let connectedBefore = socket.connected;
-    socket.on('connect', () => {
-      if (connectedBefore) refresh();
-      connectedBefore = true;
-    });
+    // Anything may have arrived while there was no connection to be told on: ask again on every
+    // connect, the first one too. The page asks for the counts as it loads, but the socket only
+    // connects after the first paint, and a reply stored in between sends its hint to nobody.
+    socket.on('connect', refresh);
   }, [socket, queryClient]);
 }
 
