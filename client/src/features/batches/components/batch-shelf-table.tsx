@@ -107,13 +107,14 @@ function RowActions({ batch }: { batch: BatchView }) {
   );
 }
 
-// What each direction means in words, for the phone's sort menu.
-const SORT_CHOICES: Record<string, { name: string; asc: string; desc: string }> = {
-  label: { name: 'Label', asc: 'A to Z', desc: 'Z to A' },
-  stage: { name: 'Stage', asc: 'A to Z', desc: 'Z to A' },
-  madeOn: { name: 'Date made', asc: 'oldest first', desc: 'newest first' },
-  age: { name: 'Age', asc: 'youngest first', desc: 'oldest first' },
-  check: { name: 'Sugar check', asc: 'lowest risk first', desc: 'highest risk first' },
+// What each direction means in words, for the phone's sort menu, the more useful one listed first
+// (names A to Z, but the newest batches, the oldest and the riskiest first).
+const SORT_CHOICES: Record<string, { name: string; asc: string; desc: string; first: 'asc' | 'desc' }> = {
+  label: { name: 'Label', asc: 'A to Z', desc: 'Z to A', first: 'asc' },
+  stage: { name: 'Stage', asc: 'A to Z', desc: 'Z to A', first: 'asc' },
+  madeOn: { name: 'Date made', asc: 'oldest first', desc: 'newest first', first: 'desc' },
+  age: { name: 'Age', asc: 'youngest first', desc: 'oldest first', first: 'desc' },
+  check: { name: 'Sugar check', asc: 'lowest risk first', desc: 'highest risk first', first: 'desc' },
 };
 
 /** The grower's batches: a sortable table on wider screens, a list of cards on a phone. */
@@ -152,7 +153,7 @@ export function BatchShelfTable({ batches }: { batches: BatchView[] }) {
               }}
             >
               {sortable.flatMap((c) =>
-                (['desc', 'asc'] as const).map((dir) => (
+                (SORT_CHOICES[c.id].first === 'asc' ? (['asc', 'desc'] as const) : (['desc', 'asc'] as const)).map((dir) => (
                   <option key={`${c.id}:${dir}`} value={`${c.id}:${dir}`}>
                     {SORT_CHOICES[c.id].name}, {SORT_CHOICES[c.id][dir]}
                   </option>
