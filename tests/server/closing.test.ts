@@ -162,6 +162,18 @@ describe('check-ins', () => {
     expect((await mailTo(grower.user.email)).filter((m) => m.kind === 'check_in')).toHaveLength(0);
     expect((await checkIns(caseId)).every((c) => c.sent_at !== null)).toBe(true);
   });
+
+  test('when a steward disabled the grower\'s account, then neither the closing nor its check-ins mail them', async () => {
+    const { caseId, grower, mentor } = await talkedCase(t.app);
+    await getSequelize().query(`UPDATE users SET disabled = true WHERE id = $1`, { bind: [grower.user.id] });
+    await closeAs(mentor.browser, caseId).expect(200);
+    expect((await caseRow(caseId)).status).toBe('watching');
+    await getSequelize().query(`UPDATE check_ins SET due_at = now() - interval '1 minute' WHERE case_id = $1`, { bind: [caseId] });
+    await sendDueCheckIns(TEST_ORIGIN);
+    expect(await mailTo(grower.user.email)).toHaveLength(0);
+    // Marked all the same, so the worker does not pick them up again.
+    expect((await checkIns(caseId)).every((c) => c.sent_at !== null)).toBe(true);
+  });
 });
 
 describe('POST /api/cases/:id/close-as-lost', () => {

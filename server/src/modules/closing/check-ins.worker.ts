@@ -1,7 +1,7 @@
 // Sends the check-in e-mails that are due. Due rows are claimed with FOR UPDATE SKIP LOCKED, so
 // several processes never mail one check-in twice (and the outbox dedupe key is a second guard);
 // the mail is queued in the same transaction that marks the check-in sent. A check-in whose case
-// is no longer watching is marked without mail.
+// is no longer watching, or whose grower's account a steward disabled, is marked without mail.
 import { QueryTypes } from 'sequelize';
 import { getSequelize, isConnectionError } from '../../db/sequelize';
 import { log } from '../../lib/logger';
@@ -15,6 +15,7 @@ interface DueRow {
   title: string;
   email: string;
   displayName: string;
+  disabled: boolean;
 }
 
 /** Sends what is due once; returns how many e-mails were queued. */
@@ -22,7 +23,7 @@ export async function sendDueCheckIns(publicUrl: string, batch = 50): Promise<nu
   const sequelize = getSequelize();
   return sequelize.transaction(async (transaction) => {
     const due = await sequelize.query<DueRow>(
-      `SELECT ci.id, ci.case_id AS "caseId", ci.day, c.status, c.title, u.email, u.display_name AS "displayName"
+      `SELECT ci.id, ci.case_id AS "caseId", ci.day, c.status, c.title, u.email, u.display_name AS "displayName", u.disabled
          FROM check_ins ci
          JOIN cases c ON c.id = ci.case_id
          JOIN users u ON u.id = c.grower_id
@@ -34,7 +35,7 @@ export async function sendDueCheckIns(publicUrl: string, batch = 50): Promise<nu
     );
     let queued = 0;
     for (const row of due) {
-      if (row.status === 'watching') {
+      if (row.status === 'watching' && !row.disabled) {
         const mailed = await queueCheckInMail(
           { publicUrl, caseId: row.caseId, day: row.day, title: row.title, to: row.email, growerName: row.displayName },
           transaction,

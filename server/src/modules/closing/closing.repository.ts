@@ -31,6 +31,8 @@ export interface ClosingRow {
   redactTerms: string[];
   growerName: string;
   growerEmail: string;
+  /** A steward disabled the grower's account: nothing is mailed to it. */
+  growerDisabled: boolean;
   mentorName: string | null;
   closedByName: string | null;
   noteSlug: string | null;
@@ -47,7 +49,7 @@ const CLOSING_SELECT = `
          c.outcome, c.stars, c.recovery_comment AS "recoveryComment", c.resolved_at AS "resolvedAt",
          c.consent_to_publish AS "consentToPublish", c.consent_photos AS "consentPhotos", c.published,
          c.redact_terms AS "redactTerms",
-         g.display_name AS "growerName", g.email AS "growerEmail", m.display_name AS "mentorName",
+         g.display_name AS "growerName", g.email AS "growerEmail", g.disabled AS "growerDisabled", m.display_name AS "mentorName",
          cb.display_name AS "closedByName", e.slug AS "noteSlug",
          c.library_hold_reason AS "libraryHoldReason", c.library_hold_by AS "libraryHoldBy",
          hb.display_name AS "libraryHoldByName", c.library_hold_at AS "libraryHoldAt"

@@ -177,22 +177,25 @@ export async function closeCase(ctx: AppContext, user: Express.User, caseId: num
     }
     await repo.close(caseId, user.id, values, t);
     await repo.scheduleCheckIns(caseId, values.checkInDays, t);
-    mailed = await queueClosedMail(
-      {
-        publicUrl: ctx.config.publicUrl,
-        caseId,
-        title: row.title,
-        to: row.growerEmail,
-        growerName: row.growerName,
-        closerName: user.displayName,
-        cause: values.cause,
-        remedy: values.remedy,
-        remedyNotes: values.remedyNotes,
-        summary: values.summary,
-        checkInDays: values.checkInDays,
-      },
-      t,
-    );
+    // A disabled account gets no mail.
+    if (!row.growerDisabled) {
+      mailed = await queueClosedMail(
+        {
+          publicUrl: ctx.config.publicUrl,
+          caseId,
+          title: row.title,
+          to: row.growerEmail,
+          growerName: row.growerName,
+          closerName: user.displayName,
+          cause: values.cause,
+          remedy: values.remedy,
+          remedyNotes: values.remedyNotes,
+          summary: values.summary,
+          checkInDays: values.checkInDays,
+        },
+        t,
+      );
+    }
     return { line: closedLine(user.displayName, values) };
   });
   if (mailed) ctx.pokeMail();
@@ -259,19 +262,28 @@ export async function republish(ctx: AppContext, user: Express.User, caseId: num
     if (held) {
       await repo.setLibraryHold(caseId, null, t);
       await audit(user.id, 'field_note.restored', { type: 'case', id: caseId }, { heldFor: row.libraryHoldReason }, t);
-      await queueLibraryHoldMail(
-        { ...holdMailOf(ctx, row, user), reason: row.libraryHoldReason!, heldAt: row.libraryHoldAt ?? new Date(), change: 'put_back' },
-        t,
-      );
+      await queueHoldMail(ctx, row, user, { reason: row.libraryHoldReason!, heldAt: row.libraryHoldAt ?? new Date(), change: 'put_back' }, t);
       return { line: `${user.displayName} put the field note of this case back in the Field Library.` };
     }
     return { line: `${user.displayName} ${wasPublished ? 'updated' : 'published'} the field note of this case.` };
   });
 }
 
-/** What every mail about a steward's hold on a case's field note says of the case and its people. */
-function holdMailOf(ctx: AppContext, row: ClosingRow, steward: Express.User) {
-  return { publicUrl: ctx.config.publicUrl, caseId: row.id, title: row.title, to: row.growerEmail, growerName: row.growerName, stewardName: steward.displayName };
+/** Tells the grower (unless their account is disabled) that a steward took their note out or put it back. */
+async function queueHoldMail(
+  ctx: AppContext,
+  row: ClosingRow,
+  steward: Express.User,
+  hold: { reason: string; heldAt: Date; change: 'taken_out' | 'put_back' },
+  t: Transaction,
+): Promise<void> {
+  if (row.growerDisabled) return;
+  const queued = await queueLibraryHoldMail(
+    { publicUrl: ctx.config.publicUrl, caseId: row.id, title: row.title, to: row.growerEmail, growerName: row.growerName, stewardName: steward.displayName, ...hold },
+    t,
+  );
+  // Sent once the change is committed: the outbox worker reads only committed rows.
+  if (queued) t.afterCommit(() => ctx.pokeMail());
 }
 
 /** A steward takes a case's published field note out of the Field Library, saying why; the grower is mailed. */
@@ -283,7 +295,7 @@ export async function takeOutOfLibrary(ctx: AppContext, user: Express.User, case
     await unpublishFieldNote(caseId, t);
     await repo.setLibraryHold(caseId, { stewardId: user.id, reason }, t);
     await audit(user.id, 'field_note.taken_down', { type: 'case', id: caseId }, { slug, reason }, t);
-    await queueLibraryHoldMail({ ...holdMailOf(ctx, row, user), reason, heldAt: new Date(), change: 'taken_out' }, t);
+    await queueHoldMail(ctx, row, user, { reason, heldAt: new Date(), change: 'taken_out' }, t);
     return { line: `${user.displayName} took the field note of this case out of the Field Library: “${reason}”` };
   });
 }
