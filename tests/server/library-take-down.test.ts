@@ -114,6 +114,17 @@ describe('a steward takes a field note out of the Field Library', () => {
     expect((await mentor.browser.post(`/api/cases/${caseId}/publish`).set(JSON_HEADERS).send({})).status).toBe(200);
   });
 
+  test('when the grower\'s account is disabled, then the note still comes out and goes back, and they are mailed neither time', async () => {
+    const { caseId, slug, grower } = await publishedCase();
+    await getSequelize().query(`UPDATE users SET disabled = true WHERE id = $1`, { bind: [grower.user.id] });
+    const steward = await signedIn(t.app, 'steward');
+    await steward.browser.post(`/api/library/${slug}/take-down`).set(JSON_HEADERS).send({ reason: REASON }).expect(200);
+    expect(await slugOf(caseId)).toBeNull();
+    await steward.browser.post(`/api/cases/${caseId}/publish`).set(JSON_HEADERS).send({}).expect(200);
+    expect(await slugOf(caseId)).not.toBeNull();
+    expect((await mailTo(grower.user.email)).filter((m) => m.kind.startsWith('note_'))).toHaveLength(0);
+  });
+
   test('when the request is wrong, then it is refused and nothing changes: no reason, a guide, an unknown note, a note already out, and anyone but a steward', async () => {
     const { caseId, slug, grower, mentor } = await publishedCase();
     const steward = await signedIn(t.app, 'steward');
