@@ -81,6 +81,9 @@ describe('the rounds and the live thread', () => {
     // Both are in the room: each sees the other as present.
     await expect.poll(() => mentor.getByText('Here now:').count(), LIVE).toBe(1);
     await expect.poll(() => grower.getByText('Here now:').count(), LIVE).toBe(1);
+    // Each is asked for the photos that are theirs to add.
+    await grower.getByText('More photos of the batch', { exact: true }).waitFor(LIVE);
+    await mentor.getByText('Photos to show the grower', { exact: true }).waitFor(LIVE);
     const stamp = Date.now().toString(36);
 
     const fromGrower = `The bubbles are smaller this morning (${stamp}).`;

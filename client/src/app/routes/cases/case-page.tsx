@@ -39,7 +39,7 @@ export default function CasePageRoute() {
           Photos
         </h2>
         <CasePhotos photos={detail.photos} title={detail.title} />
-        {mayAddPhotos && <AddCasePhotos caseId={id} />}
+        {mayAddPhotos && <AddCasePhotos caseId={id} by={user.id === detail.grower.id ? 'grower' : 'mentor'} />}
       </section>
 
       <SimilarCasesList

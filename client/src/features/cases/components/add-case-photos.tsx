@@ -6,8 +6,11 @@ import { casesKeys } from '../api/cases-keys';
 import { usePhotoDrafts } from '../hooks/use-photo-drafts';
 import { PhotoPicker } from './photo-picker';
 
-/** Add photos to a case that is already open: choose, check the previews, send. */
-export function AddCasePhotos({ caseId }: { caseId: number }) {
+/**
+ * Add photos to a case that is already open: choose, check the previews, send. The grower adds
+ * more of their batch; a mentor may show the grower something (a healthy culture, a cover).
+ */
+export function AddCasePhotos({ caseId, by }: { caseId: number; by: 'grower' | 'mentor' }) {
   const photos = usePhotoDrafts();
   const queryClient = useQueryClient();
   const [result, setResult] = useState<{ sent: number; failed: number } | null>(null);
@@ -25,8 +28,12 @@ export function AddCasePhotos({ caseId }: { caseId: number }) {
     <div className="flex flex-col gap-3">
       <PhotoPicker
         photos={photos}
-        label="More photos of the batch"
-        hint="Up to 6 at a time. They are made lighter before sending; only the grower of the case and the mentors can see them."
+        label={by === 'grower' ? 'More photos of the batch' : 'Photos to show the grower'}
+        hint={
+          by === 'grower'
+            ? 'Up to 6 at a time. They are made lighter before sending; only the grower of the case and the mentors can see them.'
+            : 'For example, a healthy culture at this stage, or a cover that breathes. Up to 6 at a time; only the grower of the case and the mentors can see them.'
+        }
         disabled={busy}
       />
       {photos.pending > 0 && (
