@@ -315,6 +315,7 @@ describe('the whole journey', () => {
       await press(g.getByRole('button', { name: 'Send the report' }));
       await visible(g.getByRole('heading', { name: 'Thank you, the report is in' }));
       await visible(g.getByText('the advice rated 5 of 5'));
+      await visible(g.getByText(/^Sorry the batch was lost\./));
       await visible(g.getByRole('link', { name: 'Read the field note' }));
       await shots.take(g, 'recovery-report-filed');
 

@@ -41,6 +41,12 @@ export default function RecoveryReportRoute() {
               {state.stars && <>, and the advice rated {state.stars} of 5</>}.
             </p>
           )}
+          {cameToFile && state.outcome === 'lost' && (
+            <p>
+              Sorry the batch was lost. What you told us goes into the record of that remedy, so the next grower with a batch like it
+              is steered towards what works.
+            </p>
+          )}
           {state.published && state.noteSlug ? (
             <Alert tone="success" title="Shared in the Field Library">
               Other growers can now learn from your batch. <Link to={`/library/${state.noteSlug}`}>Read the field note</Link>. You can stop sharing
