@@ -4,7 +4,12 @@
 // messages are on screen, brings its end and the composer into view.
 export const CONVERSATION_ANCHOR = 'conversation';
 
+/** The case page, from its top. */
+export function casePath(caseId: number | string): string {
+  return `/cases/${caseId}`;
+}
+
 /** The case page, opened at its conversation. */
 export function conversationPath(caseId: number | string): string {
-  return `/cases/${caseId}#${CONVERSATION_ANCHOR}`;
+  return `${casePath(caseId)}#${CONVERSATION_ANCHOR}`;
 }

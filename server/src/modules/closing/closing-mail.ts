@@ -1,11 +1,12 @@
 // The e-mails of closing: one when the case is closed and one per check-in, each with a link
 // straight to the recovery report. They go through the outbox in the caller's transaction.
 import type { Transaction } from 'sequelize';
+import { casePath } from '../../../shared/case-links';
 import { CAUSES, REMEDIES, labelOf } from '../../../shared/vocabulary';
 import { enqueueMail } from '../mail/outbox';
 
 export function recoveryReportUrl(publicUrl: string, caseId: number): string {
-  return `${publicUrl}/cases/${caseId}/recovery-report`;
+  return `${publicUrl}${casePath(caseId)}/recovery-report`;
 }
 
 const SAFETY_LINE =
@@ -87,10 +88,6 @@ export async function queueCheckInMail(
   );
 }
 
-export function casePageUrl(publicUrl: string, caseId: number): string {
-  return `${publicUrl}/cases/${caseId}`;
-}
-
 /**
  * A steward took the grower's field note out of the Field Library, or put it back: the grower
  * shared it, so they are told, with the reason given. `heldAt` keys the mail to that one hold.
@@ -104,12 +101,12 @@ export async function queueLibraryHoldMail(
     ? [
         `Hello ${input.growerName},`,
         '',
-        `${input.stewardName}, a steward of the Field Library, took the field note of your case “${input.title}” out of the library. Nobody finds it there or among batches like theirs until a steward puts it back.`,
+        `${input.stewardName}, a steward of the Field Library, took the field note of your case “${input.title}” out of the library. Until a steward puts it back, it is not in the library's search, nor shown to other growers beside batches like yours.`,
         '',
         `The reason given: “${input.reason}”`,
         '',
         'Your case, its advice and its conversation stay on your case page, and you still choose whether it is shared:',
-        casePageUrl(input.publicUrl, input.caseId),
+        `${input.publicUrl}${casePath(input.caseId)}`,
         '',
         '— Sporewell',
       ]
@@ -119,7 +116,7 @@ export async function queueLibraryHoldMail(
         `${input.stewardName}, a steward of the Field Library, put the field note of your case “${input.title}” back in the library, where other growers can read it again, without your name, e-mail or place.`,
         '',
         'You can stop sharing it at any time from your case page:',
-        casePageUrl(input.publicUrl, input.caseId),
+        `${input.publicUrl}${casePath(input.caseId)}`,
         '',
         '— Sporewell',
       ];

@@ -4,6 +4,7 @@
 // each such case once. cases.notify_urgent_sent_at is set in the mail's transaction by a conditional
 // UPDATE, so several processes running the watcher still send each case once.
 import { QueryTypes } from 'sequelize';
+import { casePath } from '../../../shared/case-links';
 import type { AppContext } from '../../context';
 import { getSequelize, isConnectionError } from '../../db/sequelize';
 import { log } from '../../lib/logger';
@@ -51,7 +52,7 @@ export async function runUrgentCaseCheck(ctx: AppContext): Promise<number> {
               '',
               `A ${item.stage} case with high urgency (${item.urgency} of 100) has waited more than an hour and nobody has taken it yet:`,
               `“${item.title}”`,
-              `${ctx.config.publicUrl}/cases/${item.id}`,
+              `${ctx.config.publicUrl}${casePath(item.id)}`,
               '',
               'You get this because you asked for e-mails about urgent cases; you can turn them off in your mentor settings.',
             ].join('\n'),
