@@ -56,7 +56,8 @@ export interface PersonRef {
 
 export interface MentorApplication {
   id: number;
-  applicant: PersonRef & { email: string; role: Role };
+  /** `disabled` is there for stewards only (the applicant's own list leaves it out) */
+  applicant: PersonRef & { email: string; role: Role; disabled?: boolean };
   experience: string;
   stages: StageId[];
   region: string;

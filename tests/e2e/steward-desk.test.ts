@@ -115,6 +115,37 @@ describe('a grower becomes a mentor through the steward desk', () => {
     await stewardContext.close();
   });
 
+  test('when the applicant was disabled meanwhile, then their card says so, offers no approval, and declining says no e-mail went out', async () => {
+    const growerContext = await newContext(browser, DESKTOP);
+    const grower = await newGrower(growerContext);
+    const applied = await growerContext.request.post('/api/mentor-applications', {
+      data: { experience: 'Three springs of IMO1 and IMO2 from the birch copse, and FPJ from mugwort each June.', stages: ['IMO1', 'FPJ'], region: 'Larchmere Commons, lower field' },
+    });
+    expect(applied.status()).toBe(201);
+    const me = (await (await growerContext.request.get('/api/auth/me')).json()) as { id: number };
+
+    const stewardContext = await newContext(browser, PHONE);
+    const stewardPage = await stewardContext.newPage();
+    await signIn(stewardPage, 'steward@example.test');
+    await expect.poll(() => new URL(stewardPage.url()).pathname, SIGNED_IN_WAIT).not.toBe('/sign-in');
+    const disabled = await stewardContext.request.patch(`/api/steward/users/${me.id}`, { data: { disabled: true } });
+    expect(disabled.status()).toBe(200);
+
+    await stewardPage.goto('/steward');
+    await stewardPage.getByRole('tab', { name: /Mentor applications/ }).click();
+    const card = stewardPage.getByRole('group', { name: grower.name });
+    await card.getByText('This account is disabled').waitFor();
+    expect(await card.getByRole('button', { name: /^Approve/ }).count()).toBe(0);
+    await card.getByLabel('Note for the record').fill('Declined: the account was turned off after the spam reports.');
+    await shot(stewardPage, 'steward-desk-application-disabled-phone');
+    expect(await axeProblems(stewardPage)).toEqual([]);
+    await card.getByRole('button', { name: 'Decline' }).click();
+    await stewardPage.getByText(`${grower.name}'s application was declined. No e-mail went out, since the account is disabled.`).waitFor();
+
+    await growerContext.close();
+    await stewardContext.close();
+  });
+
   test('when the demo steward opens the desk on a phone, then every tab is reachable, the health charts have their text and a mentor in People links their track record', async () => {
     const context = await newContext(browser, PHONE);
     const page = await context.newPage();

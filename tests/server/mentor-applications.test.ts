@@ -4,6 +4,7 @@ import { getSequelize } from '../../server/src/db/sequelize';
 import { sessionEvents } from '../../server/src/lib/session-events';
 import { agent, makeTestApp, type TestApp } from '../setup/test-app';
 import { createUser } from '../factories/users';
+import { usersRepository } from '../../server/src/modules/users/users.repository';
 import { captureLog, JSON_HEADERS, personSignedIn, signedInAgent } from '../factories/steward-data';
 
 let t: TestApp;
@@ -51,6 +52,8 @@ describe('POST /api/mentor-applications', () => {
     });
     const mine = await browser.get('/api/mentor-applications').expect(200);
     expect(mine.body.items.map((a: { id: number }) => a.id)).toEqual([application.id]);
+    // Whether the account is disabled is for stewards; the applicant's own list leaves it out.
+    expect(mine.body.items[0].applicant).not.toHaveProperty('disabled');
   });
 
   test('when a grower applies while one is still pending, then 409 and there is still one', async () => {
@@ -85,7 +88,7 @@ describe('GET /api/steward/mentor-applications', () => {
     const res = await browser.get('/api/steward/mentor-applications?status=pending&pageSize=100').expect(200);
     expect(res.body.items.every((a: { status: string }) => a.status === 'pending')).toBe(true);
     const found = res.body.items.find((a: { id: number }) => a.id === application.id);
-    expect(found).toMatchObject({ applicant: { id: grower.id, displayName: 'Wren Applicant', email: grower.email }, experience: GOOD_APPLICATION.experience });
+    expect(found).toMatchObject({ applicant: { id: grower.id, displayName: 'Wren Applicant', email: grower.email, disabled: false }, experience: GOOD_APPLICATION.experience });
   });
 
   test('when the status is not one we know, then 400', async () => {
@@ -157,6 +160,25 @@ describe('PATCH /api/steward/mentor-applications/:id', () => {
     expect(mails[0].kind).toBe('mentor_application_declined');
     expect(mails[0].body_text).toContain('Come back after a season of LAB.');
     await growerBrowser.post('/api/mentor-applications').set(JSON_HEADERS).send(GOOD_APPLICATION).expect(201);
+  });
+
+  test('when the applicant was disabled meanwhile, then approving is 409 and changes nothing, and declining is recorded without mailing them', async () => {
+    const { grower, application } = await growerWithApplication();
+    await usersRepository.update(grower.id, { disabled: true });
+    const { browser } = await personSignedIn(t.app, 'steward');
+    const approve = await browser.patch(`/api/steward/mentor-applications/${application.id}`).set(JSON_HEADERS).send({ decision: 'approved', note: '' });
+    expect(approve.status).toBe(409);
+    expect(approve.body.error.code).toBe('applicant_disabled');
+    const pending = await browser.get('/api/steward/mentor-applications?status=pending&pageSize=100').expect(200);
+    expect(pending.body.items.find((a: { id: number }) => a.id === application.id).applicant.disabled).toBe(true);
+    expect(await roleOf(grower.id)).toBe('grower');
+    const decline = await browser
+      .patch(`/api/steward/mentor-applications/${application.id}`)
+      .set(JSON_HEADERS)
+      .send({ decision: 'declined', note: 'Account turned off after the spam reports.' })
+      .expect(200);
+    expect(decline.body.status).toBe('declined');
+    expect(await mailTo(grower.email)).toHaveLength(0);
   });
 
   test('when a steward declines without a note, or sends an unknown decision, then 400 and the application is still pending', async () => {

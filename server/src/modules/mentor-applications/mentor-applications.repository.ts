@@ -54,6 +54,11 @@ export function withoutInternals({ applicantDisabled: _d, ...application }: Appl
   return application;
 }
 
+/** What a steward sees: whether the applicant's account is disabled, since that changes what they can decide. */
+export function forSteward({ applicantDisabled, ...application }: ApplicationRecord): MentorApplication {
+  return { ...application, applicant: { ...application.applicant, disabled: applicantDisabled } };
+}
+
 export const mentorApplicationsRepository = {
   /** Inserts a pending application; null when this person already has one pending. */
   async insertPending(input: { userId: number; experience: string; stages: StageId[]; region: string }, transaction?: Transaction): Promise<number | null> {

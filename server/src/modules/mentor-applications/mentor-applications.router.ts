@@ -5,7 +5,7 @@ import { applicationDecisionSchema, applicationStatusSchema, mentorApplicationSc
 import type { AppContext } from '../../context';
 import { pageQuery, parseId, parseOr400, requireSignedIn, requireUser } from '../../lib/http';
 import { applyToMentor, decideApplication } from './mentor-applications.service';
-import { mentorApplicationsRepository, withoutInternals } from './mentor-applications.repository';
+import { forSteward, mentorApplicationsRepository, withoutInternals } from './mentor-applications.repository';
 
 export function mentorApplicationsRouter(_ctx: AppContext): Router {
   const router = Router();
@@ -35,7 +35,7 @@ export function stewardApplicationsRouter(ctx: AppContext): Router {
   router.get('/', async (req, res) => {
     const query = parseOr400(listQuery, req.query);
     const { items, total } = await mentorApplicationsRepository.list(query);
-    res.json({ items: items.map(withoutInternals), total, page: query.page, pageSize: query.pageSize });
+    res.json({ items: items.map(forSteward), total, page: query.page, pageSize: query.pageSize });
   });
 
   router.patch('/:id', async (req, res) => {

@@ -12,7 +12,7 @@ import { log } from '../../lib/logger';
 import { audit } from '../audit/audit';
 import { enqueueMail } from '../mail/outbox';
 import { announceUserChange, setRoleInTransaction } from '../steward/people.service';
-import { mentorApplicationsRepository, withoutInternals } from './mentor-applications.repository';
+import { forSteward, mentorApplicationsRepository, withoutInternals } from './mentor-applications.repository';
 
 export async function applyToMentor(user: Express.User, input: z.output<typeof mentorApplicationSchema>) {
   if (user.role !== 'grower') throw forbidden(`You are already a ${user.role}; only growers apply to mentor.`);
@@ -66,15 +66,19 @@ export async function decideApplication(ctx: AppContext, steward: Express.User, 
       decision === 'approved' && application.applicant.role === 'grower'
         ? await setRoleInTransaction(steward.id, application.applicant.id, 'mentor', transaction, `mentor application ${applicationId}`)
         : null;
-    const mail = decisionMail(
-      ctx,
-      application.applicant.displayName,
-      decision,
-      note,
-      steward.displayName,
-      application.stages.map((s) => labelOf(STAGES, s).split(' — ')[0]),
-    );
-    await enqueueMail({ to: application.applicant.email, kind: `mentor_application_${decision}`, dedupeKey: `mentor-application:${applicationId}`, ...mail }, transaction);
+    // A disabled account gets no mail (as everywhere else): it could not act on it, and a
+    // steward may have turned it off for a reason the mail would step around.
+    if (!application.applicantDisabled) {
+      const mail = decisionMail(
+        ctx,
+        application.applicant.displayName,
+        decision,
+        note,
+        steward.displayName,
+        application.stages.map((s) => labelOf(STAGES, s).split(' — ')[0]),
+      );
+      await enqueueMail({ to: application.applicant.email, kind: `mentor_application_${decision}`, dedupeKey: `mentor-application:${applicationId}`, ...mail }, transaction);
+    }
     return { applicantId: application.applicant.id, roleChange };
   });
 
@@ -87,5 +91,5 @@ export async function decideApplication(ctx: AppContext, steward: Express.User, 
     });
   }
   const application = await mentorApplicationsRepository.findById(applicationId);
-  return withoutInternals(application!);
+  return forSteward(application!);
 }

@@ -41,6 +41,7 @@ function ApplicationCard({ application, onDecided }: { application: MentorApplic
   const name = application.applicant.displayName;
   const noteError = isApiError(decide.error, 400) ? decide.error.fields?.note : undefined;
   const headingId = `application-${application.id}`;
+  const disabled = application.applicant.disabled === true;
 
   // mutateAsync, not mutate's callbacks: once decided, this card leaves the pending list and
   // unmounts, and per-call callbacks of an unmounted mutation are never called.
@@ -51,7 +52,9 @@ function ApplicationCard({ application, onDecided }: { application: MentorApplic
         onDecided(
           decision === 'approved'
             ? `${name} is a mentor now and has been e-mailed. They see the rounds without signing in again.`
-            : `${name}'s application was declined and they have been e-mailed your note.`,
+            : disabled
+              ? `${name}'s application was declined. No e-mail went out, since the account is disabled.`
+              : `${name}'s application was declined and they have been e-mailed your note.`,
         ),
       )
       .catch(() => undefined); // shown from decide.error
@@ -75,9 +78,14 @@ function ApplicationCard({ application, onDecided }: { application: MentorApplic
 
       {application.status === 'pending' ? (
         <div className="mt-5 flex flex-col gap-3">
+          {disabled && (
+            <Alert tone="warning" title="This account is disabled">
+              {name} cannot be approved while it is; enable the account under People first. Declining is recorded, and no e-mail goes out.
+            </Alert>
+          )}
           <TextAreaField
-            label={`Note to ${name}`}
-            hint="Sent with the decision. Needed when you decline, so they know what to work on."
+            label={disabled ? 'Note for the record' : `Note to ${name}`}
+            hint={disabled ? 'Kept with the decision. Needed when you decline.' : 'Sent with the decision. Needed when you decline, so they know what to work on.'}
             value={note}
             maxLength={NOTE_MAX}
             onChange={(e) => setNote(e.target.value)}
@@ -90,9 +98,11 @@ function ApplicationCard({ application, onDecided }: { application: MentorApplic
             </Alert>
           )}
           <div className="flex flex-wrap gap-3">
-            <Button onClick={() => send('approved')} disabled={decide.isPending}>
-              {decide.isPending && decide.variables?.input.decision === 'approved' ? 'Approving…' : `Approve ${name} as a mentor`}
-            </Button>
+            {!disabled && (
+              <Button onClick={() => send('approved')} disabled={decide.isPending}>
+                {decide.isPending && decide.variables?.input.decision === 'approved' ? 'Approving…' : `Approve ${name} as a mentor`}
+              </Button>
+            )}
             <Button variant="secondary" onClick={() => send('declined')} disabled={decide.isPending}>
               {decide.isPending && decide.variables?.input.decision === 'declined' ? 'Declining…' : 'Decline'}
             </Button>
