@@ -167,3 +167,6 @@ interface Part {
   points: number;
   reason: string;
 }
+
+/** A high-urgency case nobody has taken for this long is mailed to the mentors who asked for it (once a case). */
+export const URGENT_WAIT_MINUTES = 60;

@@ -1,5 +1,6 @@
 // Debian's Chromium driven by playwright-core, with the flags this machine needs.
 import fs from 'node:fs';
+import { createRequire } from 'node:module';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { afterAll, beforeAll, inject } from 'vitest';
@@ -63,4 +64,17 @@ export async function signIn(page: Page, email: string, password = 'sporewell-de
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: /sign in/i }).click();
+}
+
+const AXE_SOURCE: string = createRequire(import.meta.url)('axe-core').source;
+
+/** Serious and critical axe findings on the page as it is now, as "rule (how many nodes)". */
+export async function axeProblems(page: Page): Promise<string[]> {
+  // Evaluated through the debugging protocol: the page's CSP rightly refuses inline scripts.
+  await page.evaluate(AXE_SOURCE);
+  return page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run: () => Promise<{ violations: Array<{ id: string; impact: string | null; nodes: unknown[] }> }> } }).axe;
+    const { violations } = await axe.run();
+    return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id} (${v.nodes.length})`);
+  });
 }

@@ -1,12 +1,9 @@
-import { createRequire } from 'node:module';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { DESKTOP, launch, newContext, PHONE, shot, signIn } from './browser';
+import type { Browser, BrowserContext } from 'playwright-core';
+import { axeProblems, DESKTOP, launch, newContext, PHONE, shot, signIn } from './browser';
 
 /** Signing in hashes a password (argon2id), which takes seconds on a busy machine: wait that long. */
 const SIGNED_IN_WAIT = { timeout: 15_000 };
-
-const axeSource: string = createRequire(import.meta.url)('axe-core').source;
 
 let browser: Browser;
 beforeAll(async () => {
@@ -16,16 +13,6 @@ afterAll(async () => {
   await browser?.close();
 });
 
-/** Serious and critical axe findings on the page as it is now. */
-async function axeProblems(page: Page): Promise<string[]> {
-  // Evaluated through the debugging protocol: the page's CSP rightly refuses inline scripts.
-  await page.evaluate(axeSource);
-  return page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: () => Promise<{ violations: Array<{ id: string; impact: string | null; nodes: unknown[] }> }> } }).axe;
-    const { violations } = await axe.run();
-    return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id} (${v.nodes.length})`);
-  });
-}
 
 /** A new grower, signed in through the join API in this context, as a newcomer would be. */
 async function newGrower(context: BrowserContext): Promise<{ name: string; email: string }> {

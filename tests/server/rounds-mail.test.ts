@@ -127,6 +127,8 @@ describe('the mail to mentors about an urgent case nobody took', () => {
     expect(mails).toHaveLength(1);
     expect(mails[0].subject).toContain('IMO1: putrid and bubbling');
     expect(mails[0].body_text).toContain(`${t.config.publicUrl}/cases/${kase.id}`);
+    // and where to turn them off: the setting at the foot of the rounds
+    expect(mails[0].body_text).toContain(`${t.config.publicUrl}/rounds#urgent-mail`);
     expect(await urgentMails(quiet.email, kase.id)).toHaveLength(0);
     expect(t.mailPokes).toBeGreaterThan(pokes);
     await runUrgentCaseCheck(t.ctx);

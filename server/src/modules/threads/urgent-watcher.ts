@@ -5,13 +5,12 @@
 // UPDATE, so several processes running the watcher still send each case once.
 import { QueryTypes } from 'sequelize';
 import { casePath } from '../../../shared/case-links';
+import { URGENT_WAIT_MINUTES } from '../../../shared/urgency';
 import type { AppContext } from '../../context';
 import { getSequelize, isConnectionError } from '../../db/sequelize';
 import { log } from '../../lib/logger';
 import { enqueueMail } from '../mail/outbox';
 import { urgencyAt } from './urgency-recompute';
-
-export const URGENT_WAIT_MINUTES = 60;
 
 /** One pass: returns how many mails were queued. */
 export async function runUrgentCaseCheck(ctx: AppContext): Promise<number> {
@@ -54,7 +53,8 @@ export async function runUrgentCaseCheck(ctx: AppContext): Promise<number> {
               `“${item.title}”`,
               `${ctx.config.publicUrl}${casePath(item.id)}`,
               '',
-              'You get this because you asked for e-mails about urgent cases; you can turn them off in your mentor settings.',
+              'You get this because you asked for e-mails about urgent cases. To stop them, untick “E-mail about urgent cases” at the foot of the rounds:',
+              `${ctx.config.publicUrl}/rounds#urgent-mail`,
             ].join('\n'),
             kind: 'urgent_case',
             dedupeKey: `urgent:${item.id}:${mentor.id}`,
