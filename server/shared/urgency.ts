@@ -170,3 +170,6 @@ interface Part {
 
 /** A high-urgency case nobody has taken for this long is mailed to the mentors who asked for it (once a case). */
 export const URGENT_WAIT_MINUTES = 60;
+
+/** A grower's post on a case a mentor holds, left unread this long, is mailed to that mentor (once, until they read). */
+export const GROWER_WROTE_MAIL_MINUTES = 10;

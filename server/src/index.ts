@@ -17,7 +17,7 @@ import { log, setLogLevel } from './lib/logger';
 import { closePhotoStores } from './lib/photo-store';
 import { createSessionKit } from './lib/session';
 import { attachRealtime } from './realtime/realtime';
-import { startUrgentCaseWatcher } from './modules/threads/urgent-watcher';
+import { startThreadMailWatcher } from './modules/threads/mail-watcher';
 import { startLibraryWork } from './modules/library/library-startup';
 import { createTransport } from './modules/mail/mailer';
 import { startOutboxWorker, type OutboxWorker } from './modules/mail/outbox';
@@ -72,7 +72,7 @@ export async function startServer(options: StartOptions = {}): Promise<RunningSe
   // Fan-out through PostgreSQL always: another process may join this database at any time.
   const realtime = attachRealtime(server, ctx, { fanoutDatabaseUrl: config.DATABASE_URL });
   await realtime.ready;
-  const urgentWatcher = startUrgentCaseWatcher(ctx);
+  const mailWatcher = startThreadMailWatcher(ctx);
   const libraryWork = await startLibraryWork(config, ctx.pokeMail);
 
   await new Promise<void>((resolve, reject) => {
@@ -86,7 +86,7 @@ export async function startServer(options: StartOptions = {}): Promise<RunningSe
   let closing: Promise<void> | null = null;
   const close = () =>
     (closing ??= (async () => {
-      await urgentWatcher.stop();
+      await mailWatcher.stop();
       await libraryWork.stop();
       await realtime.close();
       await new Promise<void>((resolve) => {

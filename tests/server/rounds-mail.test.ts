@@ -128,7 +128,7 @@ describe('the mail to mentors about an urgent case nobody took', () => {
     expect(mails[0].subject).toContain('IMO1: putrid and bubbling');
     expect(mails[0].body_text).toContain(`${t.config.publicUrl}/cases/${kase.id}`);
     // and where to turn them off: the setting at the foot of the rounds
-    expect(mails[0].body_text).toContain(`${t.config.publicUrl}/rounds#urgent-mail`);
+    expect(mails[0].body_text).toContain(`${t.config.publicUrl}/rounds#mail-settings`);
     expect(await urgentMails(quiet.email, kase.id)).toHaveLength(0);
     expect(t.mailPokes).toBeGreaterThan(pokes);
     await runUrgentCaseCheck(t.ctx);

@@ -48,6 +48,7 @@ const targets = (): [string, string, keyof typeof as][] => [
   ['POST', `/api/cases/${caseId}/recovery-report`, 'grower'],
   ['POST', `/api/cases/${caseId}/consent`, 'grower'],
   ['PATCH', '/api/cases/preferences/urgent-mail', 'mentor'],
+  ['PATCH', '/api/cases/preferences/grower-wrote-mail', 'mentor'],
   ['POST', '/api/mentor-applications', 'grower'],
   ['PATCH', '/api/steward/users/999999', 'steward'],
   ['PATCH', '/api/steward/mentor-applications/999999', 'steward'],

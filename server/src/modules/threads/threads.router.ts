@@ -18,7 +18,7 @@ const messagesQuery = z.object({ after: z.coerce.number({ error: 'Give a whole n
 const postBody = sendMessageSchema.omit({ caseId: true });
 const handOverBody = z.object({ mentorId: z.number({ error: 'Choose a mentor.' }).int().positive() });
 const statusBody = z.object({ status: caseStatusSchema });
-const urgentMailBody = z.object({ on: z.boolean({ error: 'Say true or false.' }) });
+const mailChoiceBody = z.object({ on: z.boolean({ error: 'Say true or false.' }) });
 
 export function threadsRouter(ctx: AppContext): Router {
   const router = Router();
@@ -36,9 +36,19 @@ export function threadsRouter(ctx: AppContext): Router {
   });
 
   router.patch('/preferences/urgent-mail', requireRole('mentor', 'steward'), async (req, res) => {
-    const { on } = parseOr400(urgentMailBody, req.body);
+    const { on } = parseOr400(mailChoiceBody, req.body);
     const updated = await usersRepository.update(requireUser(req).id, { notifyUrgent: on });
     res.json({ on: updated?.notifyUrgent ?? on });
+  });
+
+  // On unless turned off: a mail when a grower's post on a case they hold stays unread (grower-wrote-watcher.ts).
+  router.get('/preferences/grower-wrote-mail', requireRole('mentor', 'steward'), async (req, res) => {
+    res.json({ on: await usersRepository.growerWroteMail(requireUser(req).id) });
+  });
+
+  router.patch('/preferences/grower-wrote-mail', requireRole('mentor', 'steward'), async (req, res) => {
+    const { on } = parseOr400(mailChoiceBody, req.body);
+    res.json({ on: await usersRepository.setGrowerWroteMail(requireUser(req).id, on) });
   });
 
   router.get('/:id/messages', requireSignedIn, async (req, res) => {

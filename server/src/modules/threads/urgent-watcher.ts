@@ -1,5 +1,5 @@
 // Mentors who asked for it (users.notify_urgent) get one e-mail when a high-urgency case has
-// waited more than an hour with nobody holding it. A small timer looks once a minute, scoring
+// waited more than an hour with nobody holding it. A small timer looks once a minute (mail-watcher.ts), scoring
 // each waiting case as the rounds table does (the hours waiting climb on their own), and mails
 // each such case once. cases.notify_urgent_sent_at is set in the mail's transaction by a conditional
 // UPDATE, so several processes running the watcher still send each case once.
@@ -7,8 +7,7 @@ import { QueryTypes } from 'sequelize';
 import { casePath } from '../../../shared/case-links';
 import { URGENT_WAIT_MINUTES } from '../../../shared/urgency';
 import type { AppContext } from '../../context';
-import { getSequelize, isConnectionError } from '../../db/sequelize';
-import { log } from '../../lib/logger';
+import { getSequelize } from '../../db/sequelize';
 import { enqueueMail } from '../mail/outbox';
 import { urgencyAt } from './urgency-recompute';
 
@@ -54,7 +53,7 @@ export async function runUrgentCaseCheck(ctx: AppContext): Promise<number> {
               `${ctx.config.publicUrl}${casePath(item.id)}`,
               '',
               'You get this because you asked for e-mails about urgent cases. To stop them, untick “E-mail about urgent cases” at the foot of the rounds:',
-              `${ctx.config.publicUrl}/rounds#urgent-mail`,
+              `${ctx.config.publicUrl}/rounds#mail-settings`,
             ].join('\n'),
             kind: 'urgent_case',
             dedupeKey: `urgent:${item.id}:${mentor.id}`,
@@ -68,32 +67,4 @@ export async function runUrgentCaseCheck(ctx: AppContext): Promise<number> {
   }
   if (queued) ctx.pokeMail();
   return queued;
-}
-
-export interface UrgentCaseWatcher {
-  stop(): Promise<void>;
-}
-
-export function startUrgentCaseWatcher(ctx: AppContext, intervalMs = 60_000): UrgentCaseWatcher {
-  let stopped = false;
-  let running: Promise<void> | null = null;
-  const timer = setInterval(() => {
-    if (stopped || running) return;
-    running = runUrgentCaseCheck(ctx)
-      .then(() => undefined)
-      .catch((error) => {
-        if (!isConnectionError(error)) log.error('urgent_watcher.error', { error: (error as Error).message });
-      })
-      .finally(() => {
-        running = null;
-      });
-  }, intervalMs);
-  timer.unref();
-  return {
-    async stop() {
-      stopped = true;
-      clearInterval(timer);
-      await running;
-    },
-  };
 }

@@ -1,4 +1,4 @@
-import { Op, UniqueConstraintError } from 'sequelize';
+import { Op, QueryTypes, UniqueConstraintError } from 'sequelize';
 import type { Role } from '../../../shared/case-status';
 import { UserModel } from './users.model';
 
@@ -70,6 +70,26 @@ export const usersRepository = {
     if (!found) return null;
     await found.update(changes);
     return withoutHash(userFromRow(found));
+  },
+
+  /**
+   * Whether a mentor is mailed about grower posts left unread on cases they hold. Read apart from
+   * the signed-in user (the session lookup on every request has no need of it).
+   */
+  async growerWroteMail(id: number): Promise<boolean> {
+    const [row] = await UserModel.sequelize!.query<{ on: boolean }>(`SELECT notify_grower_wrote AS "on" FROM users WHERE id = :id`, {
+      replacements: { id },
+      type: QueryTypes.SELECT,
+    });
+    return row?.on ?? false;
+  },
+
+  async setGrowerWroteMail(id: number, on: boolean): Promise<boolean> {
+    const [row] = await UserModel.sequelize!.query<{ on: boolean }>(`UPDATE users SET notify_grower_wrote = :on WHERE id = :id RETURNING notify_grower_wrote AS "on"`, {
+      replacements: { id, on },
+      type: QueryTypes.SELECT,
+    });
+    return row?.on ?? on;
   },
 
   async list(filter: { role?: Role; q?: string; page: number; pageSize: number }): Promise<{ items: UserRecord[]; total: number }> {

@@ -17,7 +17,7 @@ import { roundsKeys } from '../../../features/rounds/api/rounds-keys';
 import { roundsQueryOptions, useRounds } from '../../../features/rounds/api/get-rounds';
 import { RoundsFiltersForm } from '../../../features/rounds/components/rounds-filters-form';
 import { RoundsTable } from '../../../features/rounds/components/rounds-table';
-import { UrgentMailSetting } from '../../../features/rounds/components/urgent-mail-setting';
+import { MailSettings } from '../../../features/rounds/components/mail-settings';
 import { filtersFromSearch, searchFromFilters, type RoundsFilters } from '../../../features/rounds/lib/rounds-filters';
 import { ConnectionBanner } from '../../../features/threads/components/connection-banner';
 
@@ -136,7 +136,7 @@ export default function RoundsRoute() {
             )}
           </div>
         ) : null}
-        <UrgentMailSetting />
+        <MailSettings />
       </div>
     </ContentLayout>
   );

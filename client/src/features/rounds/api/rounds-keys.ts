@@ -4,5 +4,5 @@ export const roundsKeys = {
   all: ['rounds'] as const,
   lists: () => [...roundsKeys.all, 'list'] as const,
   list: (filters: RoundsFilters) => [...roundsKeys.lists(), filters] as const,
-  urgentMail: () => [...roundsKeys.all, 'urgent-mail'] as const,
+  mailChoice: (choice: string) => [...roundsKeys.all, 'mail-choice', choice] as const,
 };
