@@ -92,6 +92,9 @@ describe('the whole journey', () => {
       await press(g.getByRole('button', { name: 'Join Sporewell' }));
       await visible(g.getByRole('heading', { level: 1, name: 'Batch shelf' }));
       await visible(g.getByRole('heading', { name: 'Your shelf is empty' }));
+      // Until the link in the e-mail is opened, the shelf asks for it (check-ins go to that address).
+      await visible(g.getByText('Please confirm your e-mail address'));
+      await visible(g.getByText(grower.email, { exact: true }));
       await shots.take(g, 'joined-empty-shelf');
 
       const confirm = await mailbox.linkIn(grower.email, /^Confirm your e-mail/, /^\/verify-email$/);
@@ -101,6 +104,8 @@ describe('the whole journey', () => {
       await shots.take(g, 'email-confirmed');
 
       await press(g.getByRole('link', { name: 'batch shelf', exact: true }));
+      await visible(g.getByRole('heading', { name: 'Your shelf is empty' }));
+      expect(await g.getByText('Please confirm your e-mail address').count()).toBe(0);
       await press(g.getByRole('link', { name: 'Add a batch' }).first());
       await visible(g.getByRole('heading', { level: 1, name: 'Add a batch' }));
       await g.getByLabel('Stage').selectOption('FPJ');

@@ -264,4 +264,43 @@ describe('password reset and e-mail verification', () => {
     expect(res.status).toBe(200);
     expect(res.body.emailVerified).toBe(true);
   });
+
+  const linkMails = (email: string, kind: string) =>
+    getSequelize().query<{ id: number }>('SELECT id FROM outbox_mail WHERE to_address = :email AND kind = :kind', { replacements: { email, kind }, type: QueryTypes.SELECT });
+  /** Moves the address's mails back in time, as if sent that many seconds ago. */
+  const sentAgo = (email: string, seconds: number) =>
+    getSequelize().query('UPDATE outbox_mail SET created_at = created_at - make_interval(secs => :seconds) WHERE to_address = :email', { replacements: { email, seconds } });
+
+  test('when a new member asks for the confirmation link again at once, then 429 says when to ask, and nothing is sent; after two minutes a new link goes out and works', async () => {
+    const email = uniqueEmail('again');
+    const browser = agent(t.app);
+    await browser.post('/api/auth/register').set(json).send({ email, password: 'mossy-jar-on-the-shelf', displayName: 'Ansel' }).expect(201);
+    const soon = await browser.post('/api/auth/verify-email/resend').set(json).send({});
+    expect(soon.status).toBe(429);
+    expect(soon.body.error.code).toBe('link_sent_recently');
+    expect(soon.body.error.message).toContain(`A link went to ${email} less than 2 minutes ago.`);
+    expect(soon.body.error.message).toMatch(/you can ask for another in (about \d minutes|\d+ seconds)\.$/);
+    expect(Number(soon.headers['retry-after'])).toBeGreaterThan(0);
+    expect(Number(soon.headers['retry-after'])).toBeLessThanOrEqual(120);
+    expect(await linkMails(email, 'verify_email')).toHaveLength(1);
+
+    await sentAgo(email, 121);
+    await browser.post('/api/auth/verify-email/resend').set(json).send({}).expect(202);
+    expect(await linkMails(email, 'verify_email')).toHaveLength(2);
+    const token = await tokenFromOutbox(email, '/verify-email');
+    expect((await agent(t.app).post('/api/auth/verify-email').set(json).send({ token }).expect(200)).body.emailVerified).toBe(true);
+    // Confirmed: asking again sends nothing.
+    await sentAgo(email, 121);
+    await browser.post('/api/auth/verify-email/resend').set(json).send({}).expect(202);
+    expect(await linkMails(email, 'verify_email')).toHaveLength(2);
+  });
+
+  test('when a reset is asked for again and again, then each answer is the same 202 and one link goes out per two minutes', async () => {
+    const user = await createUser();
+    for (let i = 0; i < 5; i += 1) await agent(t.app).post('/api/auth/password-reset/request').set(json).send({ email: user.email }).expect(202);
+    expect(await linkMails(user.email, 'reset_password')).toHaveLength(1);
+    await sentAgo(user.email, 121);
+    await agent(t.app).post('/api/auth/password-reset/request').set(json).send({ email: user.email }).expect(202);
+    expect(await linkMails(user.email, 'reset_password')).toHaveLength(2);
+  });
 });

@@ -106,8 +106,34 @@ export async function verifyEmail(token: string): Promise<UserRecord> {
   return user;
 }
 
+/**
+ * A confirmation or reset link goes to an address at most once in this many seconds: asking
+ * again sooner sends nothing, so nobody can fill an inbox with them.
+ */
+export const LINK_MAIL_GAP_SECONDS = 120;
+
+/** Seconds left before another link of this kind may go to the address (0: it may go now). */
+async function secondsUntilNextLink(to: string, kind: 'verify_email' | 'reset_password'): Promise<number> {
+  const [row] = await getSequelize().query<{ left: number }>(
+    `SELECT ceil(:gap - EXTRACT(EPOCH FROM (now() - max(created_at))))::int AS left
+       FROM outbox_mail WHERE to_address = :to AND kind = :kind AND created_at > now() - make_interval(secs => :gap)`,
+    { replacements: { to, kind, gap: LINK_MAIL_GAP_SECONDS }, type: QueryTypes.SELECT },
+  );
+  return Math.max(0, row?.left ?? 0);
+}
+
 export async function resendVerification(user: UserRecord, publicUrl: string): Promise<void> {
   if (user.emailVerified) return;
+  const wait = await secondsUntilNextLink(user.email, 'verify_email');
+  if (wait > 0) {
+    throw new AppError(
+      429,
+      'link_sent_recently',
+      `A link went to ${user.email} less than ${LINK_MAIL_GAP_SECONDS / 60} minutes ago. Look for it in your inbox (and the spam folder); you can ask for another in ${wait > 60 ? `about ${Math.ceil(wait / 60)} minutes` : `${wait} seconds`}.`,
+      undefined,
+      { 'Retry-After': String(wait) },
+    );
+  }
   const token = await issueToken(user.id, 'verify_email', 48 * 60);
   await enqueueMail({
     to: user.email,
@@ -121,6 +147,8 @@ export async function requestPasswordReset(email: string, publicUrl: string): Pr
   const user = await usersRepository.findByEmailWithHash(email);
   // The answer is the same whether or not the account exists.
   if (!user || user.disabled) return;
+  // Asked again within the gap: the link sent a moment ago still works; nothing more is sent.
+  if ((await secondsUntilNextLink(user.email, 'reset_password')) > 0) return;
   const token = await issueToken(user.id, 'reset_password', 60);
   await enqueueMail({
     to: user.email,

@@ -5,6 +5,7 @@ import { Alert } from '../../../components/ui/alert';
 import { buttonClasses } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { Spinner } from '../../../components/ui/spinner';
+import { ConfirmEmailNotice } from '../../../features/auth/components/confirm-email-notice';
 import { batchesQueryOptions, useBatches } from '../../../features/batches/api/get-batches';
 import { BatchShelfTable } from '../../../features/batches/components/batch-shelf-table';
 import { MyCasesList } from '../../../features/cases/components/my-cases-list';
@@ -23,6 +24,7 @@ export default function BatchShelfRoute() {
       title="Batch shelf"
       lead="Every batch you are making or keeping, with its age and a quick sugar check. Open a case from any of them when it starts to go wrong."
     >
+      <ConfirmEmailNotice className="mb-6" />
       <div className="mb-6 flex flex-wrap gap-3">
         <Link to="/batches/new" className={buttonClasses('primary')}>
           Add a batch
