@@ -49,6 +49,12 @@ export const applicationDecisionSchema = z
   .refine((v) => v.decision !== 'declined' || v.note.length > 0, { path: ['note'], message: 'Say why, so the grower knows what to work on.' });
 export type ApplicationDecisionInput = z.input<typeof applicationDecisionSchema>;
 
+/** What growers read about a mentor on their profile, in the mentor's own words (empty: nothing). */
+export const ABOUT_MAX = 600;
+export const mentorAboutSchema = z.object({
+  about: z.string({ error: 'Write a few words, or leave it empty.' }).trim().max(ABOUT_MAX, `Keep it under ${ABOUT_MAX} characters.`),
+});
+
 export interface PersonRef {
   id: number;
   displayName: string;

@@ -34,7 +34,13 @@ export async function newContext(browser: Browser, device: typeof PHONE | typeof
  * One browser for a test file, launched before its tests and closed after them with every page
  * it opened: `newPage(device)` gives a page in a fresh context (its own cookies).
  */
-export function useBrowser(): { newPage(device?: typeof PHONE | typeof DESKTOP): Promise<Page> } {
+export function useBrowser(): {
+  newPage(device?: typeof PHONE | typeof DESKTOP): Promise<Page>;
+  /** a fresh context (its own cookies), closed with the others after the file's tests */
+  newContext(device?: typeof PHONE | typeof DESKTOP): Promise<BrowserContext>;
+  /** the browser itself, for helpers that open contexts of their own */
+  browser(): Browser;
+} {
   let browser: Browser | undefined;
   const contexts: BrowserContext[] = [];
   beforeAll(async () => {
@@ -44,13 +50,21 @@ export function useBrowser(): { newPage(device?: typeof PHONE | typeof DESKTOP):
     for (const context of contexts) await context.close();
     await browser?.close();
   });
+  const started = (): Browser => {
+    if (!browser) throw new Error('useBrowser(): the browser starts in beforeAll; ask for pages inside tests.');
+    return browser;
+  };
+  const tracked = async (device: typeof PHONE | typeof DESKTOP) => {
+    const context = await newContext(started(), device);
+    contexts.push(context);
+    return context;
+  };
   return {
     async newPage(device = DESKTOP) {
-      if (!browser) throw new Error('useBrowser(): the browser starts in beforeAll; ask for pages inside tests.');
-      const context = await newContext(browser, device);
-      contexts.push(context);
-      return context.newPage();
+      return (await tracked(device)).newPage();
     },
+    newContext: (device = DESKTOP) => tracked(device),
+    browser: started,
   };
 }
 

@@ -1,26 +1,17 @@
 // A mentor chooses their e-mails at the foot of the rounds, with the keyboard, on a phone: the
 // mail when a grower writes (on at first) and the urgent-case mail (off at first). Each choice is
 // saved on the server and still there after a reload.
-import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { axeProblems, launch, newContext, PHONE, shot } from './browser';
+import { describe, expect, test } from 'vitest';
+import { axeProblems, PHONE, shot, useBrowser } from './browser';
 import { freshPerson, signInByApi } from './fresh-people';
 
 const WAIT = { timeout: 20_000 };
-
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-});
-
+const chromium = useBrowser();
 
 describe('the e-mail choices on the rounds', () => {
   test('when a new mentor ticks the urgent-case e-mail and unticks the grower one with the keyboard, then each is saved, says so, and survives a reload at the link the mails give', async () => {
-    const mentor = await freshPerson(browser, 'mentor', 'Tamsin');
-    const context = await newContext(browser, PHONE);
+    const mentor = await freshPerson(chromium.browser(), 'mentor', 'Tamsin');
+    const context = await chromium.newContext(PHONE);
     await signInByApi(context, mentor.email, mentor.password);
     const page = await context.newPage();
     const stored = async (choice: string) => ((await (await context.request.get(`/api/cases/preferences/${choice}`)).json()) as { on: boolean }).on;
@@ -57,6 +48,5 @@ describe('the e-mail choices on the rounds', () => {
     await page.keyboard.press('Space');
     await settings.getByText('Saved: no more urgent-case e-mails.').waitFor(WAIT);
     expect(await stored('urgent-mail')).toBe(false);
-    await context.close();
   });
 });

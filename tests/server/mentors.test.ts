@@ -4,7 +4,7 @@ import { getSequelize } from '../../server/src/db/sequelize';
 import { publishFieldNote } from '../../server/src/modules/library/field-notes';
 import { agent, makeTestApp, type TestApp } from '../setup/test-app';
 import { createCase, createResolvedCase, daysAgo } from '../factories/cases';
-import { signedIn } from '../factories/sign-in';
+import { JSON_HEADERS, signedIn } from '../factories/sign-in';
 import { createUser } from '../factories/users';
 
 let t: TestApp;
@@ -95,6 +95,33 @@ describe('GET /api/mentors/:id', () => {
     expect((await grower.browser.get(`/api/mentors/${grower.user.id}`)).status).toBe(404);
     expect((await grower.browser.get('/api/mentors/abc')).status).toBe(404);
     expect((await grower.browser.get('/api/mentors/99999999')).status).toBe(404);
+  });
+});
+
+describe('PATCH /api/mentors/me', () => {
+  test('when a mentor writes about themselves, then it is stored trimmed and every signed-in person reads it on the profile; empty takes it away', async () => {
+    const mentor = await signedIn(t.app, 'mentor');
+    const about = 'Eight winters of IMO from the hazel coppice.\nAsk me about <b>bran piles</b> that run hot.';
+    const saved = await mentor.browser.patch('/api/mentors/me').set(JSON_HEADERS).send({ about: `  ${about}  ` });
+    expect(saved.status).toBe(200);
+    expect(saved.body).toEqual({ about });
+    const grower = await signedIn(t.app, 'grower');
+    expect((await grower.browser.get(`/api/mentors/${mentor.user.id}`).expect(200)).body.about).toBe(about);
+    expect((await mentor.browser.patch('/api/mentors/me').set(JSON_HEADERS).send({ about: '   ' }).expect(200)).body).toEqual({ about: null });
+    expect((await grower.browser.get(`/api/mentors/${mentor.user.id}`).expect(200)).body.about).toBeNull();
+  });
+
+  test('when it is too long or not text, then 400 names the field and nothing changes; a grower gets 403 and a visitor 401', async () => {
+    const mentor = await signedIn(t.app, 'mentor');
+    await mentor.browser.patch('/api/mentors/me').set(JSON_HEADERS).send({ about: 'LAB from rice wash.' }).expect(200);
+    const long = await mentor.browser.patch('/api/mentors/me').set(JSON_HEADERS).send({ about: 'x'.repeat(601) });
+    expect(long.status).toBe(400);
+    expect(long.body.error.fields.about).toBe('Keep it under 600 characters.');
+    expect((await mentor.browser.patch('/api/mentors/me').set(JSON_HEADERS).send({ about: 42 })).status).toBe(400);
+    expect((await mentor.browser.get(`/api/mentors/${mentor.user.id}`).expect(200)).body.about).toBe('LAB from rice wash.');
+    const grower = await signedIn(t.app, 'grower');
+    expect((await grower.browser.patch('/api/mentors/me').set(JSON_HEADERS).send({ about: 'I mentor now' })).status).toBe(403);
+    expect((await agent(t.app).patch('/api/mentors/me').set(JSON_HEADERS).send({ about: 'hi' })).status).toBe(401);
   });
 });
 

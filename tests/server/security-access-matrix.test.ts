@@ -155,6 +155,7 @@ const MATRIX: Record<string, Row> = {
   // Who mentors, and how many cases each holds, is for the staff handing a case over.
   'GET /api/mentors': { path: () => '/api/mentors', expect: STAFF_ONLY },
   'GET /api/mentors/:id': { path: (f) => `/api/mentors/${f.mentorId}`, expect: SIGNED_IN },
+  'PATCH /api/mentors/me': { path: () => '/api/mentors/me', body: () => ({ about: 'Bran piles and plant juices since the old orchard.' }), expect: STAFF_ONLY },
   'GET /api/mentor-applications': { path: () => '/api/mentor-applications', expect: SIGNED_IN },
   // Only growers apply to mentor.
   'POST /api/mentor-applications': { path: () => '/api/mentor-applications', body: () => ({ experience: 'Five years of bran piles and plant juices.', stages: ['IMO3'], region: 'the upper terraces' }), expect: [401, 'pass', 'pass', 403, 403] },

@@ -244,6 +244,7 @@ const FIELD_ROWS: Record<string, FieldRow> = {
   'POST /api/library/:slug/take-down': { path: () => '/api/library/any-field-note/take-down', body: () => ({ reason: 'Taking it out myself.' }), statuses: REFUSED },
   'POST /api/cases/:id/close-as-lost': { state: 'watching', path: (f) => `/api/cases/${f.caseId}/close-as-lost`, statuses: REFUSED },
   'PATCH /api/steward/users/:id': { path: () => `/api/steward/users/${grower.user.id}`, body: () => ({ role: 'steward' }), statuses: REFUSED },
+  'PATCH /api/mentors/me': { path: () => '/api/mentors/me', body: () => ({ about: 'I mentor now.' }), statuses: REFUSED },
   'PATCH /api/steward/mentor-applications/:id': {
     uses: ['application'],
     path: (f) => `/api/steward/mentor-applications/${f.applicationId}`,

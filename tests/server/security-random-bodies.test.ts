@@ -49,6 +49,7 @@ const targets = (): [string, string, keyof typeof as][] => [
   ['POST', `/api/cases/${caseId}/consent`, 'grower'],
   ['PATCH', '/api/cases/preferences/urgent-mail', 'mentor'],
   ['PATCH', '/api/cases/preferences/grower-wrote-mail', 'mentor'],
+  ['PATCH', '/api/mentors/me', 'mentor'],
   ['POST', '/api/mentor-applications', 'grower'],
   ['PATCH', '/api/steward/users/999999', 'steward'],
   ['PATCH', '/api/steward/mentor-applications/999999', 'steward'],
@@ -62,7 +63,7 @@ const targets = (): [string, string, keyof typeof as][] => [
 // values — the second reaches deeper into the validators than random keys would.
 const FIELDS = ['stage', 'culture', 'sugar', 'sugarType', 'moisturePct', 'containerWeight', 'label', 'madeOn', 'symptoms', 'title',
   'description', 'numbers', 'batchId', 'clientId', 'body', 'kind', 'status', 'mentorId', 'cause', 'remedy', 'summary', 'outcome',
-  'stars', 'consentToPublish', 'on', 'experience', 'stages', 'region', 'role', 'disabled', 'decision', 'note', 'token', 'password',
+  'stars', 'consentToPublish', 'on', 'about', 'experience', 'stages', 'region', 'role', 'disabled', 'decision', 'note', 'token', 'password',
   'value', 'unit', 'published', 'urgency', 'growerId'];
 const fieldValue = fc.oneof(
   fc.jsonValue(),

@@ -12,7 +12,9 @@ import { routeIdOf } from '../../../features/batches/lib/route-id';
 import { EntryTags } from '../../../features/library/components/entry-tags';
 import { OutcomeBadge } from '../../../features/library/components/outcome-badge';
 import { TrackRecordBar } from '../../../features/library/components/track-record-bar';
+import { useUser } from '../../../features/auth/api/get-me';
 import { mentorQueryOptions } from '../../../features/mentors/api/get-mentor';
+import { AboutEditor } from '../../../features/mentors/components/about-editor';
 import { monthYear } from '../../../lib/english-dates';
 
 export const clientLoader = (queryClient: QueryClient) => async ({ params }: LoaderFunctionArgs) => {
@@ -44,6 +46,7 @@ export default function MentorProfileRoute() {
   const id = routeIdOf(useParams().id);
   const { data: mentor } = useSuspenseQuery(mentorQueryOptions(id));
   const { record } = mentor;
+  const isMe = useUser().data?.id === mentor.id;
 
   return (
     <ContentLayout
@@ -51,10 +54,11 @@ export default function MentorProfileRoute() {
       lead={
         <>
           {mentor.role === 'steward' ? 'Steward' : 'Mentor'} on Sporewell since {monthText(mentor.memberSince)}.
-          {mentor.about && <span className="mt-2 block">{mentor.about}</span>}
+          {mentor.about && <span className="mt-2 block whitespace-pre-line">{mentor.about}</span>}
         </>
       }
     >
+      {isMe && <AboutEditor mentorId={mentor.id} about={mentor.about} />}
       <section aria-labelledby="record-heading" className="flex flex-col gap-4">
         <h2 id="record-heading" className="text-2xl font-extrabold">
           Track record
