@@ -1,9 +1,11 @@
 // ASVS 1.2.1 / 1.3.1: output is encoded. A <script> and an onerror image in a case's title,
 // description and a thread message are shown as text on every screen that shows them, and run
-// nowhere: the grower's case page and batch shelf, the mentor's rounds and case page.
+// nowhere: the grower's case page and batch shelf, the mentor's rounds and case page; and the
+// lines a mentor writes about themselves, on their profile as a grower reads it.
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { baseUrl, launch, newContext, signIn } from './browser';
+import { freshPerson, signInByApi } from './fresh-people';
 
 const PAYLOAD = `<script>window.__xss = 1</script><img src=x onerror="window.__xss = 2">`;
 let browser: Browser;
@@ -77,6 +79,23 @@ describe('a script in a case and a message', () => {
       return res.status;
     }, caseId);
     expect(withdrawn).toBe(200);
+    await growerContext.close();
+  });
+
+  test("when a mentor writes markup into what growers read about them, then their profile shows it as text and nothing runs", async () => {
+    const mentor = await freshPerson(browser, 'mentor', 'Xanthe');
+    const mentorContext = await newContext(browser);
+    await signInByApi(mentorContext, mentor.email, mentor.password);
+    const saved = await mentorContext.request.patch('/api/mentors/me', { data: { about: `About <script> ${PAYLOAD}` } });
+    expect(saved.status()).toBe(200);
+    await mentorContext.close();
+
+    const growerContext = await newContext(browser);
+    await signInByApi(growerContext, 'grower@example.test');
+    const grower = await growerContext.newPage();
+    await grower.goto(`/mentors/${mentor.id}`);
+    await grower.getByText('About <script>', { exact: false }).first().waitFor({ timeout: 15_000 });
+    await expectInert(grower, 'mentor profile');
     await growerContext.close();
   });
 });
