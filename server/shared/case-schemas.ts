@@ -52,6 +52,12 @@ export const madeOnSchema = z.iso
   .refine((day) => day >= '1950-01-01', { error: 'That date is too long ago.' })
   .refine((day) => day <= latestAllowedDay(), { error: 'The date cannot be in the future.' });
 
+/** The day a grower finished with a batch (used up or thrown out); null puts it back on the shelf. */
+export const finishedOnSchema = z.iso
+  .date({ error: 'Enter the date as YYYY-MM-DD.' })
+  .refine((day) => day <= latestAllowedDay(), { error: 'The date cannot be in the future.' })
+  .nullable();
+
 const text = (max: number, what: string) => z.string({ error: `Enter ${what} as text.` }).trim().max(max, { error: `Keep ${what} under ${max} characters.` });
 
 // ---------------------------------------------------------------------------------------------
@@ -73,6 +79,7 @@ const batchFields = {
   cover: text(120, 'the cover'),
   location: text(200, 'where it sits'),
   notes: text(5000, 'the notes'),
+  finishedOn: finishedOnSchema,
 };
 
 export const batchCreateSchema = z.object({
@@ -86,6 +93,7 @@ export const batchCreateSchema = z.object({
   cover: batchFields.cover.optional(),
   location: batchFields.location.optional(),
   notes: batchFields.notes.optional(),
+  finishedOn: batchFields.finishedOn.optional(),
 });
 export type BatchCreateInput = z.input<typeof batchCreateSchema>;
 export type BatchCreate = z.output<typeof batchCreateSchema>;
@@ -130,6 +138,8 @@ export interface BatchView {
   cover: string;
   location: string;
   notes: string;
+  /** YYYY-MM-DD: the day the grower finished with it (it is off the shelf); null while on the shelf */
+  finishedOn: string | null;
   /** null unless both weights are known */
   check: BatchCheckSummary | null;
   createdAt: string;

@@ -101,6 +101,51 @@ describe('the batch shelf', () => {
     expect(read.body.label).toBe('Cedar hollow rice');
   });
 
+  test('when a grower takes a batch off the shelf, then it leaves the shelf list, is listed with finished=true, the counts say so, and null puts it back', async () => {
+    const { browser, user } = await signedIn(t.app);
+    const kept = await createBatch(user.id, { label: 'still fizzing', madeOn: dayString(3) });
+    const done = await createBatch(user.id, { label: 'used on the leeks', madeOn: dayString(40) });
+    const off = await browser.patch(`/api/batches/${done.id}`).set(JSON_HEADERS).send({ finishedOn: dayString(1) });
+    expect(off.status).toBe(200);
+    expect(off.body.finishedOn).toBe(dayString(1));
+
+    const shelf = await browser.get('/api/batches').expect(200);
+    expect(shelf.body.items.map((b: { label: string }) => b.label)).toEqual(['still fizzing']);
+    expect(shelf.body).toMatchObject({ total: 1, counts: { onShelf: 1, finished: 1 } });
+    expect(shelf.body.items[0].finishedOn).toBeNull();
+    const gone = await browser.get('/api/batches?finished=true').expect(200);
+    expect(gone.body.items.map((b: { id: number }) => b.id)).toEqual([done.id]);
+    expect(gone.body).toMatchObject({ total: 1, counts: { onShelf: 1, finished: 1 } });
+    // The batch itself is still there, as it was.
+    expect((await browser.get(`/api/batches/${done.id}`).expect(200)).body).toMatchObject({ label: 'used on the leeks', finishedOn: dayString(1) });
+
+    await browser.patch(`/api/batches/${done.id}`).set(JSON_HEADERS).send({ finishedOn: null }).expect(200);
+    const back = await browser.get('/api/batches').expect(200);
+    expect(back.body.items.map((b: { id: number }) => b.id).sort()).toEqual([kept.id, done.id].sort());
+    expect(back.body.counts).toEqual({ onShelf: 2, finished: 0 });
+  });
+
+  test('when the day it was finished comes before the day it was made, or is in the future, then 400 names the field and nothing changes', async () => {
+    const { browser, user } = await signedIn(t.app);
+    const batch = await createBatch(user.id, { madeOn: dayString(10) });
+    const early = await browser.patch(`/api/batches/${batch.id}`).set(JSON_HEADERS).send({ finishedOn: dayString(12) });
+    expect(early.status).toBe(400);
+    expect(early.body.error.fields.finishedOn).toBe(`The batch was made on ${dayString(10)}: it cannot be finished before that.`);
+    const future = await browser.patch(`/api/batches/${batch.id}`).set(JSON_HEADERS).send({ finishedOn: dayString(-3) });
+    expect(future.status).toBe(400);
+    expect(future.body.error.fields.finishedOn).toBe('The date cannot be in the future.');
+    await browser.patch(`/api/batches/${batch.id}`).set(JSON_HEADERS).send({ finishedOn: dayString(2) }).expect(200);
+    // Moving the day it was made past the day it was finished is refused on madeOn.
+    const late = await browser.patch(`/api/batches/${batch.id}`).set(JSON_HEADERS).send({ madeOn: dayString(1) });
+    expect(late.status).toBe(400);
+    expect(late.body.error.fields.madeOn).toBe(`The batch was finished on ${dayString(2)}: it was made before that.`);
+    expect((await browser.get(`/api/batches/${batch.id}`).expect(200)).body).toMatchObject({ madeOn: dayString(10), finishedOn: dayString(2) });
+    const created = await browser.post('/api/batches').set(JSON_HEADERS).send({ ...shelfBatch, madeOn: dayString(4), finishedOn: dayString(6) });
+    expect(created.status).toBe(400);
+    expect(created.body.error.fields.finishedOn).toBeTruthy();
+    expect((await browser.get('/api/batches?finished=maybe')).status).toBe(400);
+  });
+
   test('when a visitor asks for the shelf, then 401', async () => {
     expect((await agent(t.app).get('/api/batches')).status).toBe(401);
     expect((await agent(t.app).post('/api/batches').set(JSON_HEADERS).send(shelfBatch)).status).toBe(401);

@@ -63,7 +63,7 @@ const targets = (): [string, string, keyof typeof as][] => [
 // values — the second reaches deeper into the validators than random keys would.
 const FIELDS = ['stage', 'culture', 'sugar', 'sugarType', 'moisturePct', 'containerWeight', 'label', 'madeOn', 'symptoms', 'title',
   'description', 'numbers', 'batchId', 'clientId', 'body', 'kind', 'status', 'mentorId', 'cause', 'remedy', 'summary', 'outcome',
-  'stars', 'consentToPublish', 'on', 'about', 'experience', 'stages', 'region', 'role', 'disabled', 'decision', 'note', 'token', 'password',
+  'stars', 'consentToPublish', 'on', 'about', 'finishedOn', 'experience', 'stages', 'region', 'role', 'disabled', 'decision', 'note', 'token', 'password',
   'value', 'unit', 'published', 'urgency', 'growerId'];
 const fieldValue = fc.oneof(
   fc.jsonValue(),

@@ -30,6 +30,7 @@ export interface BatchRow extends WeightColumns {
   cover: string;
   location: string;
   notes: string;
+  finishedOn: string | null;
   createdAt: Date;
   updatedAt: Date;
 }
@@ -47,6 +48,7 @@ const COLUMNS = `
   b.culture_value::float8 AS "cultureValue", b.culture_unit AS "cultureUnit",
   b.sugar_value::float8 AS "sugarValue", b.sugar_unit AS "sugarUnit", b.sugar_type AS "sugarType",
   b.moisture_pct::float8 AS "moisturePct", b.container, b.cover, b.location, b.notes,
+  to_char(b.finished_on, 'YYYY-MM-DD') AS "finishedOn",
   b.created_at AS "createdAt", b.updated_at AS "updatedAt"`;
 
 /** Which columns a field of the API writes. */
@@ -70,6 +72,7 @@ function columnsOf(input: BatchPatch): Record<string, unknown> {
   if (input.cover !== undefined) set.cover = input.cover;
   if (input.location !== undefined) set.location = input.location;
   if (input.notes !== undefined) set.notes = input.notes;
+  if (input.finishedOn !== undefined) set.finished_on = input.finishedOn;
   return set;
 }
 
@@ -102,7 +105,11 @@ export const batchesRepository = {
     return rows[0]?.ownerId ?? null;
   },
 
-  async listOwned(ownerId: number, page: number, pageSize: number): Promise<{ rows: ShelfBatchRow[]; total: number }> {
+  /**
+   * One page of the shelf (`finished` false: the batches on it, newest made first) or of the
+   * batches taken off it (most recently finished first), with how many each side holds.
+   */
+  async listOwned(ownerId: number, page: number, pageSize: number, finished = false): Promise<{ rows: ShelfBatchRow[]; total: number; counts: { onShelf: number; finished: number } }> {
     const sequelize = getSequelize();
     const [rows, count] = await Promise.all([
       sequelize.query<ShelfBatchRow>(
@@ -113,15 +120,18 @@ export const batchesRepository = {
               WHERE c.batch_id = b.id AND c.status IN (:open)
               ORDER BY c.opened_at DESC, c.id DESC LIMIT 1
            ) oc ON true
-          WHERE b.owner_id = :ownerId ORDER BY b.made_on DESC, b.id DESC LIMIT :limit OFFSET :offset`,
-        { replacements: { ownerId, open: [...OPEN_STATUSES], limit: pageSize, offset: (page - 1) * pageSize }, type: QueryTypes.SELECT },
+          WHERE b.owner_id = :ownerId AND (b.finished_on IS NOT NULL) = :finished
+          ORDER BY ${finished ? 'b.finished_on DESC, ' : ''}b.made_on DESC, b.id DESC LIMIT :limit OFFSET :offset`,
+        { replacements: { ownerId, finished, open: [...OPEN_STATUSES], limit: pageSize, offset: (page - 1) * pageSize }, type: QueryTypes.SELECT },
       ),
-      sequelize.query<{ total: number }>(`SELECT count(*)::int AS total FROM batches WHERE owner_id = :ownerId`, {
-        replacements: { ownerId },
-        type: QueryTypes.SELECT,
-      }),
+      sequelize.query<{ onShelf: number; finished: number }>(
+        `SELECT count(*) FILTER (WHERE finished_on IS NULL)::int AS "onShelf", count(*) FILTER (WHERE finished_on IS NOT NULL)::int AS finished
+           FROM batches WHERE owner_id = :ownerId`,
+        { replacements: { ownerId }, type: QueryTypes.SELECT },
+      ),
     ]);
-    return { rows, total: count[0].total };
+    const counts = count[0];
+    return { rows, total: finished ? counts.finished : counts.onShelf, counts };
   },
 
   async updateOwned(ownerId: number, id: number, patch: BatchPatch): Promise<BatchRow | null> {

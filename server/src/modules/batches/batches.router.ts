@@ -1,11 +1,15 @@
 // The batch shelf (owner only) and the sugar & water check (open to anyone, visitors too).
 // Mounted at /api.
 import { Router } from 'express';
+import { z } from 'zod';
 import { batchCheckInputSchema, checkBatch } from '../../../shared/batch-check';
 import { batchCreateSchema, batchPatchSchema } from '../../../shared/case-schemas';
 import type { AppContext } from '../../context';
 import { pageQuery, parseId, parseOr400, requireSignedIn, requireUser } from '../../lib/http';
 import { batchesService } from './batches.service';
+
+/** `finished=true` lists the batches taken off the shelf instead of those on it. */
+const listQuery = pageQuery.extend({ finished: z.enum(['true', 'false'], { error: 'Say true or false.' }).optional() });
 
 export function batchesRouter(_ctx: AppContext): Router {
   const router = Router();
@@ -16,8 +20,8 @@ export function batchesRouter(_ctx: AppContext): Router {
   });
 
   router.get('/batches', requireSignedIn, async (req, res) => {
-    const { page, pageSize } = parseOr400(pageQuery, req.query);
-    res.json(await batchesService.list(requireUser(req).id, page, pageSize));
+    const { page, pageSize, finished } = parseOr400(listQuery, req.query);
+    res.json(await batchesService.list(requireUser(req).id, page, pageSize, finished === 'true'));
   });
 
   router.post('/batches', requireSignedIn, async (req, res) => {
@@ -33,9 +37,9 @@ export function batchesRouter(_ctx: AppContext): Router {
     const id = parseId(req.params.id, 'That batch');
     const owner = requireUser(req).id;
     // Not found before "needs fixing", so a stranger learns nothing from a bad body either.
-    await batchesService.ownedOr404(owner, id);
+    const current = await batchesService.ownedOr404(owner, id);
     const patch = parseOr400(batchPatchSchema, req.body);
-    res.json(await batchesService.update(owner, id, patch));
+    res.json(await batchesService.update(owner, id, patch, current));
   });
 
   return router;

@@ -1,7 +1,7 @@
 // The batch shelf's rules: owner only (anyone else's batch is "not found"), and each batch
 // answered with its age and, when both weights are known, the sugar & water check in brief.
 import type { BatchCreate, BatchPatch, BatchView, CaseNumbers } from '../../../shared/case-schemas';
-import { notFound, type AppError } from '../../lib/errors';
+import { AppError, notFound } from '../../lib/errors';
 import { log } from '../../lib/logger';
 import { checkOf } from '../cases/case-assessment';
 import { batchesRepository, type BatchRow } from './batches.repository';
@@ -41,6 +41,7 @@ export function batchView(row: BatchRow): BatchView {
     cover: row.cover,
     location: row.location,
     notes: row.notes,
+    finishedOn: row.finishedOn,
     check: check && {
       ratio: check.ratio,
       targetRatio: check.targetRatio,
@@ -56,16 +57,19 @@ export function batchView(row: BatchRow): BatchView {
 
 export const batchesService = {
   async create(ownerId: number, input: BatchCreate): Promise<BatchView> {
+    if (input.finishedOn && input.finishedOn < input.madeOn) {
+      throw new AppError(400, 'invalid_input', 'Some fields need fixing.', { finishedOn: `The batch was made on ${input.madeOn}: it cannot be finished before that.` });
+    }
     return batchView(await batchesRepository.create(ownerId, input));
   },
 
-  async list(ownerId: number, page: number, pageSize: number) {
-    const { rows, total } = await batchesRepository.listOwned(ownerId, page, pageSize);
+  async list(ownerId: number, page: number, pageSize: number, finished = false) {
+    const { rows, total, counts } = await batchesRepository.listOwned(ownerId, page, pageSize, finished);
     const items = rows.map((row) => ({
       ...batchView(row),
       openCase: row.openCaseId === null ? null : { id: row.openCaseId, title: row.openCaseTitle!, status: row.openCaseStatus! },
     }));
-    return { items, total, page, pageSize };
+    return { items, total, page, pageSize, counts };
   },
 
   async ownedOr404(ownerId: number, id: number): Promise<BatchRow> {
@@ -80,7 +84,18 @@ export const batchesService = {
     return { ...batchView(row), cases: cases.map((c) => ({ ...c, openedAt: c.openedAt.toISOString() })) };
   },
 
-  async update(ownerId: number, id: number, patch: BatchPatch): Promise<BatchView> {
+  async update(ownerId: number, id: number, patch: BatchPatch, current?: BatchRow): Promise<BatchView> {
+    // Finished on or after the day it was made, whichever of the two this change moves.
+    if (current) {
+      const madeOn = patch.madeOn ?? current.madeOn;
+      const finishedOn = patch.finishedOn === undefined ? current.finishedOn : patch.finishedOn;
+      if (finishedOn !== null && finishedOn < madeOn) {
+        const field = patch.finishedOn !== undefined ? 'finishedOn' : 'madeOn';
+        throw new AppError(400, 'invalid_input', 'Some fields need fixing.', {
+          [field]: field === 'finishedOn' ? `The batch was made on ${madeOn}: it cannot be finished before that.` : `The batch was finished on ${finishedOn}: it was made before that.`,
+        });
+      }
+    }
     const row = await batchesRepository.updateOwned(ownerId, id, patch);
     if (!row) throw await batchNotFound(ownerId, id);
     return batchView(row);

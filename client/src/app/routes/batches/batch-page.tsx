@@ -8,6 +8,7 @@ import { liveBatchCheck } from '../../../features/batch-check/hooks/use-live-bat
 import { batchRouteLoader, useRouteBatch } from '../../../features/batches/api/get-batch';
 import { ageText, formatMadeOn, stageLabel } from '../../../features/batches/lib/batch-format';
 import { openCasesOf } from '../../../features/batches/lib/open-cases';
+import { OffShelfControl } from '../../../features/batches/components/off-shelf-control';
 import { dayShortMonth } from '../../../lib/english-dates';
 
 export const clientLoader = batchRouteLoader;
@@ -41,7 +42,10 @@ export default function BatchPageRoute() {
   ];
 
   return (
-    <ContentLayout title={batch.label} lead={`${stageLabel(batch.stage)} · made ${formatMadeOn(batch.madeOn)}`}>
+    <ContentLayout
+      title={batch.label}
+      lead={`${stageLabel(batch.stage)} · made ${formatMadeOn(batch.madeOn)}${batch.finishedOn ? ` · off the shelf since ${formatMadeOn(batch.finishedOn)}` : ''}`}
+    >
       <div className="flex flex-wrap gap-3">
         <Link to={`/cases/new?batch=${batch.id}`} className={buttonClasses('primary')}>
           {openCasesOf(batch).length > 0 ? 'Open another case about this batch' : 'Open a case about this batch'}
@@ -91,6 +95,7 @@ export default function BatchPageRoute() {
               <p className="mt-2 text-loam-soft">None yet. If it starts to smell, bubble or change colour, open a case while it can still be saved.</p>
             )}
           </section>
+          <OffShelfControl batch={batch} />
         </div>
         <BatchCheckPanel
           check={check}

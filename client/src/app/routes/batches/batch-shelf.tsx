@@ -1,5 +1,6 @@
+import type { ReactNode } from 'react';
 import type { QueryClient } from '@tanstack/react-query';
-import { Link } from 'react-router';
+import { Link, useSearchParams, type LoaderFunctionArgs } from 'react-router';
 import { ContentLayout } from '../../../components/layouts/content-layout';
 import { Alert } from '../../../components/ui/alert';
 import { buttonClasses } from '../../../components/ui/button';
@@ -10,14 +11,34 @@ import { batchesQueryOptions, useBatches } from '../../../features/batches/api/g
 import { BatchShelfTable } from '../../../features/batches/components/batch-shelf-table';
 import { MyCasesList } from '../../../features/cases/components/my-cases-list';
 
-export const clientLoader = (queryClient: QueryClient) => async () => {
+/** `?off=1` shows the batches taken off the shelf (used up or thrown out) instead. */
+const offShelfOf = (url: URL | URLSearchParams) => (url instanceof URL ? url.searchParams : url).get('off') === '1';
+
+export const clientLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
   // Warm the cache without failing the page: the page shows its own error with a way to retry.
-  await queryClient.prefetchQuery(batchesQueryOptions());
+  await queryClient.prefetchQuery(batchesQueryOptions(offShelfOf(new URL(request.url))));
   return null;
 };
 
 export default function BatchShelfRoute() {
-  const batches = useBatches();
+  const [params] = useSearchParams();
+  const offShelf = offShelfOf(params);
+  const batches = useBatches(offShelf);
+  const counts = batches.data?.counts;
+
+  if (offShelf) {
+    return (
+      <ContentLayout
+        title="Taken off the shelf"
+        lead="Batches you have finished with: used up on the beds or thrown out. Their cases and jar labels are kept; put one back on the shelf if you took it off by mistake."
+      >
+        <Link to="/batches" className={buttonClasses('secondary', 'mb-6')}>
+          ← Back to the batch shelf
+        </Link>
+        <ShelfList batches={batches} empty={<p className="text-loam-soft">Nothing here: every batch you recorded is still on the shelf.</p>} />
+      </ContentLayout>
+    );
+  }
 
   return (
     <ContentLayout
@@ -33,19 +54,14 @@ export default function BatchShelfRoute() {
           Open a case without a batch
         </Link>
       </div>
-      {batches.isPending ? (
-        <Spinner label="Fetching your batches…" />
-      ) : batches.isError ? (
-        <Alert tone="danger" title="Your batches could not be shown">
-          <p>{batches.error.message}</p>
-          <button type="button" className="mt-2 font-bold underline" onClick={() => void batches.refetch()}>
-            Try again
-          </button>
-        </Alert>
-      ) : batches.data.items.length === 0 ? (
-        <EmptyShelf />
-      ) : (
-        <BatchShelfTable batches={batches.data.items} />
+      <ShelfList batches={batches} empty={<EmptyShelf />} />
+      {counts && counts.finished > 0 && (
+        <p className="mt-4">
+          <Link to="/batches?off=1">
+            {counts.finished === 1 ? '1 batch' : `${counts.finished} batches`} taken off the shelf
+          </Link>
+          <span className="text-loam-soft"> — used up or thrown out</span>
+        </p>
       )}
       <section aria-labelledby="my-cases-heading" className="mt-12">
         <h2 id="my-cases-heading" className="mb-4 text-2xl font-extrabold">
@@ -55,6 +71,22 @@ export default function BatchShelfRoute() {
       </section>
     </ContentLayout>
   );
+}
+
+/** The batches of one side of the shelf once they are in, or why they are not. */
+function ShelfList({ batches, empty }: { batches: ReturnType<typeof useBatches>; empty: ReactNode }) {
+  if (batches.isPending) return <Spinner label="Fetching your batches…" />;
+  if (batches.isError) {
+    return (
+      <Alert tone="danger" title="Your batches could not be shown">
+        <p>{batches.error.message}</p>
+        <button type="button" className="mt-2 font-bold underline" onClick={() => void batches.refetch()}>
+          Try again
+        </button>
+      </Alert>
+    );
+  }
+  return batches.data.items.length === 0 ? empty : <BatchShelfTable batches={batches.data.items} />;
 }
 
 function EmptyShelf() {

@@ -8,18 +8,21 @@ export interface BatchList {
   total: number;
   page: number;
   pageSize: number;
+  /** how many batches are on the shelf and how many were taken off it */
+  counts: { onShelf: number; finished: number };
 }
 
-export function getBatches(signal?: AbortSignal): Promise<BatchList> {
-  return api.get<BatchList>('/api/batches?pageSize=100', { signal });
+/** The batches on the shelf, or (`finished`) those taken off it. */
+export function getBatches(finished: boolean, signal?: AbortSignal): Promise<BatchList> {
+  return api.get<BatchList>(`/api/batches?pageSize=100${finished ? '&finished=true' : ''}`, { signal });
 }
 
-export const batchesQueryOptions = () =>
+export const batchesQueryOptions = (finished = false) =>
   queryOptions({
-    queryKey: batchesKeys.list(),
-    queryFn: ({ signal }) => getBatches(signal),
+    queryKey: batchesKeys.list(finished ? { finished: 'true' } : {}),
+    queryFn: ({ signal }) => getBatches(finished, signal),
   });
 
-export function useBatches() {
-  return useQuery(batchesQueryOptions());
+export function useBatches(finished = false) {
+  return useQuery(batchesQueryOptions(finished));
 }
