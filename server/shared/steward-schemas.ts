@@ -218,6 +218,13 @@ export interface ReportReceipt {
 }
 
 /** What POST /api/steward/messages/:id/hide answers. */
+/** POST /api/steward/messages/:id/show: a hidden message back in its thread. */
+export interface ShownMessage {
+  id: number;
+  caseId: number;
+  hidden: false;
+}
+
 export interface HiddenMessage {
   id: number;
   caseId: number;

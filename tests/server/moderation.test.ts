@@ -134,6 +134,45 @@ describe('steward moderation', () => {
     expect((await growerBrowser.post(`/api/messages/${messageId}/reports`).set(JSON_HEADERS).send({ reason: 'Rude.' })).status).toBe(409);
   });
 
+  test('when a steward shows a hidden message again, then its text is back in the thread, open threads get it, the audit log has both steps and its reports stay settled', async () => {
+    const { caseId, messageId, growerBrowser } = await threadWithRudeReply();
+    const report = await growerBrowser.post(`/api/messages/${messageId}/reports`).set(JSON_HEADERS).send({ reason: 'Insulting?' }).expect(201);
+    const { user: steward, browser } = await personSignedIn(t.app, 'steward');
+    await browser.post(`/api/steward/messages/${messageId}/hide`).set(JSON_HEADERS).send({ note: 'Looked like an attack.' }).expect(200);
+    const shownLive: Array<[number, number, string]> = [];
+    const removePublisher = addThreadPublisher({
+      publish: async () => undefined,
+      isViewing: async () => false,
+      messageHidden: () => undefined,
+      messageShown: (c, m) => void shownLive.push([c, m.id, m.body]),
+    });
+    const log = captureLog();
+    try {
+      const res = await browser.post(`/api/steward/messages/${messageId}/show`).set(JSON_HEADERS).send({ note: 'On a second read it is a joke between old friends.' });
+      expect(res.status).toBe(200);
+      expect(res.body).toEqual({ id: messageId, caseId, hidden: false });
+      expect(log.lines()).toContainEqual(expect.objectContaining({ level: 'security', event: 'steward.message_shown_again', actorId: steward.id, messageId }));
+    } finally {
+      log.restore();
+      removePublisher();
+    }
+    expect(shownLive).toEqual([[caseId, messageId, RUDE]]);
+    expect(await messageRow(messageId)).toMatchObject({ body: RUDE, hidden: false, hidden_by: null });
+    const thread = await growerBrowser.get(`/api/cases/${caseId}/messages`).expect(200);
+    expect(thread.body.items.find((m: { id: number }) => m.id === messageId)).toMatchObject({ hidden: false, body: RUDE });
+    const audit = await browser.get(`/api/steward/audit?targetType=message&targetId=${messageId}`).expect(200);
+    expect(audit.body.items.map((e: { action: string }) => e.action)).toEqual(['message.shown_again', 'message.hidden', 'message.reported']);
+    expect(audit.body.items[0]).toMatchObject({ actor: { id: steward.id }, detail: { note: 'On a second read it is a joke between old friends.', caseId } });
+    const settled = await browser.get('/api/steward/reports?status=hidden&pageSize=100').expect(200);
+    expect(settled.body.items.find((r: { id: number }) => r.id === report.body.id)).toMatchObject({ status: 'hidden', message: { hidden: false } });
+
+    // Not hidden any more: showing it again is 409; a missing message is 404.
+    const again = await browser.post(`/api/steward/messages/${messageId}/show`).set(JSON_HEADERS).send({});
+    expect(again.status).toBe(409);
+    expect(again.body.error.code).toBe('not_hidden');
+    expect((await browser.post('/api/steward/messages/999999999/show').set(JSON_HEADERS).send({})).status).toBe(404);
+  });
+
   test('when a steward hides a message that does not exist, then 404', async () => {
     const { browser } = await personSignedIn(t.app, 'steward');
     expect((await browser.post('/api/steward/messages/999999999/hide').set(JSON_HEADERS).send({})).status).toBe(404);

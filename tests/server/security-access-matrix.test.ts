@@ -171,6 +171,7 @@ const MATRIX: Record<string, Row> = {
   'PATCH /api/steward/mentor-applications/:id': { fresh: true, path: (f) => `/api/steward/mentor-applications/${f.applicationId}`, body: () => ({ decision: 'declined', note: 'Not yet.' }), expect: STEWARD_ONLY },
   'GET /api/steward/reports': { path: () => '/api/steward/reports', expect: STEWARD_ONLY },
   'POST /api/steward/messages/:id/hide': { fresh: true, path: (f) => `/api/steward/messages/${f.messageId}/hide`, body: () => ({}), expect: STEWARD_ONLY },
+  'POST /api/steward/messages/:id/show': { fresh: true, path: (f) => `/api/steward/messages/${f.messageId}/show`, body: () => ({}), expect: STEWARD_ONLY },
   'POST /api/steward/reports/:id/dismiss': { fresh: true, path: (f) => `/api/steward/reports/${f.reportId}/dismiss`, body: () => ({}), expect: STEWARD_ONLY },
 };
 

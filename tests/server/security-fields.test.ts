@@ -257,6 +257,11 @@ const FIELD_ROWS: Record<string, FieldRow> = {
     statuses: REFUSED,
     check: async (f) => expect((await one(`SELECT hidden FROM messages WHERE id = :id`, { id: f.messageId })).hidden).toBe(false),
   },
+  'POST /api/steward/messages/:id/show': {
+    path: (f) => `/api/steward/messages/${f.messageId}/show`,
+    statuses: REFUSED,
+    check: async (f) => expect((await one(`SELECT hidden FROM messages WHERE id = :id`, { id: f.messageId })).hidden).toBe(false),
+  },
   'POST /api/steward/reports/:id/dismiss': {
     uses: ['report'],
     path: (f) => `/api/steward/reports/${f.reportId}/dismiss`,

@@ -54,6 +54,7 @@ const targets = (): [string, string, keyof typeof as][] => [
   ['PATCH', '/api/steward/users/999999', 'steward'],
   ['PATCH', '/api/steward/mentor-applications/999999', 'steward'],
   ['POST', '/api/steward/messages/999999/hide', 'steward'],
+  ['POST', '/api/steward/messages/999999/show', 'steward'],
   ['POST', '/api/library/no-such-note/take-down', 'steward'],
   ['POST', '/api/auth/password-reset', 'grower'],
   ['POST', '/api/auth/verify-email', 'grower'],

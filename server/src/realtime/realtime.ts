@@ -160,6 +160,11 @@ function threadPublisher(io: ThreadServer, registry: ViewerRegistry): ThreadPubl
     messageHidden(caseId, messageId) {
       io.to(caseRoom(caseId)).emit('message:hidden', { caseId, messageId });
     },
+    // The thread merges it by id over the placeholder; an aside goes to the staff of the case only.
+    // No unread hint: the message is not new.
+    messageShown(caseId, message) {
+      io.to(message.kind === 'aside' ? caseStaffRoom(caseId) : caseRoom(caseId)).emit('message:new', message);
+    },
   };
 }
 

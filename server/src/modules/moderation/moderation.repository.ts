@@ -129,6 +129,11 @@ export const moderationRepository = {
     return row.hiddenAt;
   },
 
+  /** Puts a hidden message back: its text shows in the thread again. */
+  async showMessage(id: number, transaction: Transaction): Promise<void> {
+    await getSequelize().query(`UPDATE messages SET hidden = false, hidden_by = NULL, hidden_at = NULL WHERE id = :id`, { replacements: { id }, transaction });
+  },
+
   /** Closes the open reports of a message as settled by the hide; returns their ids. */
   async closeOpenReports(messageId: number, status: 'hidden' | 'dismissed', stewardId: number, transaction: Transaction): Promise<number[]> {
     const rows = await getSequelize().query<{ id: number }>(

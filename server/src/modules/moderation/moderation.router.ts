@@ -5,7 +5,7 @@ import { moderationNoteSchema, reportMessageSchema, reportStatusSchema } from '.
 import type { AppContext } from '../../context';
 import { pageQuery, parseId, parseOr400, requireSignedIn, requireUser } from '../../lib/http';
 import { moderationRepository } from './moderation.repository';
-import { dismissReport, hideMessage, reportMessage } from './moderation.service';
+import { dismissReport, hideMessage, reportMessage, showMessageAgain } from './moderation.service';
 
 export function moderationRouter(_ctx: AppContext): Router {
   const router = Router();
@@ -34,6 +34,12 @@ export function stewardModerationRouter(ctx: AppContext): Router {
     const messageId = parseId(req.params.id, 'That message');
     const { note } = parseOr400(moderationNoteSchema, req.body ?? {});
     res.json(await hideMessage(ctx, requireUser(req), messageId, note));
+  });
+
+  router.post('/messages/:id/show', async (req, res) => {
+    const messageId = parseId(req.params.id, 'That message');
+    const { note } = parseOr400(moderationNoteSchema, req.body ?? {});
+    res.json(await showMessageAgain(requireUser(req), messageId, note));
   });
 
   router.post('/reports/:id/dismiss', async (req, res) => {

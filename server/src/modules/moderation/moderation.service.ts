@@ -1,14 +1,15 @@
 // Reporting and hiding messages. A hidden message keeps its text in the database and in the
 // audit row (the record of what was said and who hid it); every serializer sends the
 // placeholder instead, and open threads are told to drop the text at once.
-import type { HiddenMessage, ReportReceipt } from '../../../shared/steward-schemas';
+import type { HiddenMessage, ReportReceipt, ShownMessage } from '../../../shared/steward-schemas';
 import type { AppContext } from '../../context';
 import { getSequelize } from '../../db/sequelize';
 import { AppError, conflict, notFound } from '../../lib/errors';
 import { log } from '../../lib/logger';
 import { audit } from '../audit/audit';
 import { canReadCase, findCaseForAccess, seesAsides } from '../cases/case-access';
-import { announceMessageHidden } from '../threads/thread-events';
+import { messagesRepository } from '../threads/messages.repository';
+import { announceMessageHidden, announceMessageShown } from '../threads/thread-events';
 import { moderationRepository } from './moderation.repository';
 
 /** Anyone who can see the message in its thread may report it; anyone else gets a 404. */
@@ -60,6 +61,25 @@ export async function hideMessage(_ctx: AppContext, steward: Express.User, messa
   log.security('steward.message_hidden', { actorId: steward.id, messageId, caseId: outcome.caseId, reports: outcome.reportIds.length });
   announceMessageHidden(outcome.caseId, messageId);
   return { id: messageId, caseId: outcome.caseId, hidden: true, hiddenAt: new Date(outcome.hiddenAt).toISOString(), reportsClosed: outcome.reportIds.length };
+}
+
+/**
+ * A steward puts back a message that was hidden (by mistake, or after a second look). Its reports
+ * stay settled as they were; the audit log keeps both steps, and open threads get the text back.
+ */
+export async function showMessageAgain(steward: Express.User, messageId: number, note: string): Promise<ShownMessage> {
+  const caseId = await getSequelize().transaction(async (transaction) => {
+    const message = await moderationRepository.findMessage(messageId, { lock: true, transaction });
+    if (!message) throw notFound('That message');
+    if (!message.hidden) throw conflict('not_hidden', 'This message is not hidden.');
+    await moderationRepository.showMessage(messageId, transaction);
+    await audit(steward.id, 'message.shown_again', { type: 'message', id: messageId }, { caseId: message.caseId, authorId: message.authorId, note }, transaction);
+    return message.caseId;
+  });
+  log.security('steward.message_shown_again', { actorId: steward.id, messageId, caseId });
+  const message = await messagesRepository.findById(messageId);
+  if (message) announceMessageShown(caseId, message);
+  return { id: messageId, caseId, hidden: false };
 }
 
 export async function dismissReport(steward: Express.User, reportId: number, note: string) {

@@ -33,6 +33,8 @@ export interface ThreadPublisher {
   isViewing?(caseId: number, userId: number): Promise<boolean>;
   /** A steward hid a message: its text is dropped from every open thread. */
   messageHidden(caseId: number, messageId: number): void;
+  /** A steward showed a hidden message again: open threads that may read it get it back. */
+  messageShown?(caseId: number, message: ThreadMessage): void;
 }
 
 const publishers = new Set<ThreadPublisher>();
@@ -85,4 +87,9 @@ export function viewersOfCases(caseIds: number[]): Map<number, Set<number>> {
 /** For the moderation routes: call after a message was hidden, so open threads drop its text. */
 export function announceMessageHidden(caseId: number, messageId: number): void {
   for (const publisher of publishers) publisher.messageHidden(caseId, messageId);
+}
+
+/** For the moderation routes: call after a hidden message was shown again. */
+export function announceMessageShown(caseId: number, message: ThreadMessage): void {
+  for (const publisher of publishers) publisher.messageShown?.(caseId, message);
 }

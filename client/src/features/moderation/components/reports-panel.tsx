@@ -12,6 +12,7 @@ import { formatDateTime } from '../../steward/lib/dates';
 import { useReports } from '../api/get-reports';
 import { useDismissReport } from '../api/dismiss-report';
 import { useHideMessage } from '../api/hide-message';
+import { useShowMessage } from '../api/show-message';
 
 const STATUS_WORDS: Record<ReportStatus, string> = {
   open: 'Waiting for a steward',
@@ -44,12 +45,13 @@ export function ReportsPanel() {
 }
 
 function ReportCard({ report, onDone }: { report: MessageReport; onDone: (message: string) => void }) {
-  const [asking, setAsking] = useState<'hide' | 'dismiss' | null>(null);
+  const [asking, setAsking] = useState<'hide' | 'dismiss' | 'show' | null>(null);
   const [note, setNote] = useState('');
   const hide = useHideMessage();
   const dismiss = useDismissReport();
-  const busy = hide.isPending || dismiss.isPending;
-  const error = hide.error ?? dismiss.error;
+  const show = useShowMessage();
+  const busy = hide.isPending || dismiss.isPending || show.isPending;
+  const error = hide.error ?? dismiss.error ?? show.error;
   const m = report.message;
   const author = m.author ? `${m.author.displayName} (${ROLE_LABELS[m.author.role].toLowerCase()})` : 'someone who has left';
   const headingId = `report-${report.id}`;
@@ -59,6 +61,7 @@ function ReportCard({ report, onDone }: { report: MessageReport; onDone: (messag
     setNote('');
     hide.reset();
     dismiss.reset();
+    show.reset();
   };
   // mutateAsync: a settled report leaves the open list and this card unmounts, which would drop
   // mutate's per-call callbacks.
@@ -66,7 +69,9 @@ function ReportCard({ report, onDone }: { report: MessageReport; onDone: (messag
     const done =
       asking === 'hide'
         ? hide.mutateAsync({ messageId: m.id, note }).then(() => `The message by ${author} is hidden for everyone. Its text stays in the audit log.`)
-        : dismiss.mutateAsync({ reportId: report.id, note }).then(() => 'The report is dismissed; the message stays as it was.');
+        : asking === 'show'
+          ? show.mutateAsync({ messageId: m.id, note }).then(() => `The message by ${author} shows in its thread again.`)
+          : dismiss.mutateAsync({ reportId: report.id, note }).then(() => 'The report is dismissed; the message stays as it was.');
     done.then((message) => {
       close();
       onDone(message);
@@ -80,7 +85,7 @@ function ReportCard({ report, onDone }: { report: MessageReport; onDone: (messag
       </h3>
       <p className="text-loam-soft">
         {author} wrote{m.kind === 'aside' ? ' (a mentor aside)' : ''} on {formatDateTime(m.createdAt)}
-        {m.hidden && ' — now hidden'}:
+        {m.hidden ? ' — now hidden' : report.status === 'hidden' ? ' — hidden, then shown again' : ''}:
       </p>
       <blockquote className="mt-2 whitespace-pre-wrap rounded-soft border-l-4 border-ember bg-rice-deep px-4 py-3">{m.body}</blockquote>
       <p className="mt-3">
@@ -100,18 +105,25 @@ function ReportCard({ report, onDone }: { report: MessageReport; onDone: (messag
           </Button>
         </div>
       ) : (
-        <p className="mt-4 rounded-soft bg-rice-deep px-3 py-2">
-          <span className="font-bold">{STATUS_WORDS[report.status]}</span>
-          {report.decidedBy && ` by ${report.decidedBy.displayName}`}
-          {report.decidedAt && ` on ${formatDateTime(report.decidedAt)}`}
-        </p>
+        <>
+          <p className="mt-4 rounded-soft bg-rice-deep px-3 py-2">
+            <span className="font-bold">{STATUS_WORDS[report.status]}</span>
+            {report.decidedBy && ` by ${report.decidedBy.displayName}`}
+            {report.decidedAt && ` on ${formatDateTime(report.decidedAt)}`}
+          </p>
+          {m.hidden && (
+            <Button variant="secondary" className="mt-3" onClick={() => setAsking('show')}>
+              Show the message again
+            </Button>
+          )}
+        </>
       )}
 
       <ConfirmDialog
         open={asking !== null}
         busy={busy}
-        title={asking === 'hide' ? 'Hide this message for everyone?' : 'Dismiss this report?'}
-        confirmLabel={asking === 'hide' ? 'Hide the message' : 'Dismiss the report'}
+        title={asking === 'hide' ? 'Hide this message for everyone?' : asking === 'show' ? 'Show this message again?' : 'Dismiss this report?'}
+        confirmLabel={asking === 'hide' ? 'Hide the message' : asking === 'show' ? 'Show the message again' : 'Dismiss the report'}
         confirmVariant={asking === 'hide' ? 'danger' : 'primary'}
         onConfirm={confirm}
         onCancel={close}
@@ -119,7 +131,9 @@ function ReportCard({ report, onDone }: { report: MessageReport; onDone: (messag
         <p>
           {asking === 'hide'
             ? 'Everyone in the thread sees “Hidden by a steward” in its place, at once. The text is kept in the audit log.'
-            : 'The message stays as it is. The person who reported it is not told.'}
+            : asking === 'show'
+              ? 'Everyone in the thread sees its text again, at once. The reports about it stay settled, and the audit log keeps both steps.'
+              : 'The message stays as it is. The person who reported it is not told.'}
         </p>
         <TextAreaField label="Note for the audit log (optional)" value={note} rows={2} maxLength={1000} onChange={(e) => setNote(e.target.value)} />
         {error && (

@@ -27,6 +27,8 @@ export function describeAudit(entry: AuditEntry): string {
       return `reported a message in “${target}”${quoted(d.reason)}`;
     case 'message.hidden':
       return `hid a message in “${target}”${quoted(d.note)}`;
+    case 'message.shown_again':
+      return `showed a hidden message in “${target}” again${quoted(d.note)}`;
     case 'field_note.taken_down':
       return `took the field note of “${target}” out of the Field Library${quoted(d.reason)}`;
     case 'field_note.restored':
