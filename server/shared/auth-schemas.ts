@@ -18,15 +18,27 @@ export const passwordSchema = z
   .min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`)
   .max(PASSWORD_MAX, `Use at most ${PASSWORD_MAX} characters.`);
 
+export const displayNameSchema = z
+  .string({ error: 'Tell us what to call you.' })
+  .trim()
+  .min(1, 'Tell us what to call you.')
+  .max(60, 'Keep your name under 60 characters.');
+
 export const registerSchema = z.object({
   email: emailSchema,
   password: passwordSchema,
-  displayName: z
-    .string({ error: 'Tell us what to call you.' })
-    .trim()
-    .min(1, 'Tell us what to call you.')
-    .max(60, 'Keep your name under 60 characters.'),
+  displayName: displayNameSchema,
 });
+
+/** PATCH /api/auth/me: what the signed-in person may change about themselves here. */
+export const accountPatchSchema = z.object({ displayName: displayNameSchema });
+
+/** POST /api/auth/password: the current password, then the new one. */
+export const passwordChangeSchema = z.object({
+  currentPassword: z.string({ error: 'Enter your current password.' }).min(1, 'Enter your current password.').max(PASSWORD_MAX),
+  password: passwordSchema,
+});
+export type PasswordChangeInput = z.infer<typeof passwordChangeSchema>;
 export type RegisterInput = z.infer<typeof registerSchema>;
 
 export const loginSchema = z.object({

@@ -201,6 +201,8 @@ const PEOPLE: { who: Who; screens: () => Screen[] }[] = [
       { path: `/cases/${watchingCaseId}/recovery-report` },
       { path: `/mentors/${mentor.id}` },
       { path: '/apply-to-mentor' },
+      { path: '/account' },
+      { path: '/batches?off=1' },
     ],
   },
   {
@@ -209,6 +211,7 @@ const PEOPLE: { who: Who; screens: () => Screen[] }[] = [
       { path: '/rounds' },
       { path: `/cases/${openCaseId}`, then: openClosingForm },
       { path: `/mentors/${mentor.id}` },
+      { path: '/account' },
     ],
   },
   {

@@ -106,6 +106,9 @@ const MATRIX: Record<string, Row> = {
   'POST /api/auth/login': { path: () => '/api/auth/login', body: () => ({}), expect: ANYONE },
   'POST /api/auth/logout': { ownSession: true, path: () => '/api/auth/logout', expect: ANYONE },
   'GET /api/auth/me': { path: () => '/api/auth/me', expect: SIGNED_IN },
+  'PATCH /api/auth/me': { fresh: true, path: () => '/api/auth/me', body: () => ({ displayName: 'Matrix Person' }), expect: SIGNED_IN },
+  // A wrong current password: past the access checks, refused for its content (400).
+  'POST /api/auth/password': { path: () => '/api/auth/password', body: () => ({ currentPassword: 'not-the-password', password: 'a-long-new-password' }), expect: SIGNED_IN },
   'POST /api/auth/verify-email': { path: () => '/api/auth/verify-email', body: () => ({ token: 'x'.repeat(40) }), expect: ANYONE },
   'POST /api/auth/verify-email/resend': { path: () => '/api/auth/verify-email/resend', expect: SIGNED_IN },
   'POST /api/auth/password-reset/request': { path: () => '/api/auth/password-reset/request', body: () => ({ email: 'nobody@example.test' }), expect: ANYONE },

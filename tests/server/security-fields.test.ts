@@ -138,6 +138,13 @@ const FIELD_ROWS: Record<string, FieldRow> = {
   },
   'POST /api/auth/verify-email': { path: () => '/api/auth/verify-email', body: () => ({ token: 'x'.repeat(40) }), statuses: [400] },
   'POST /api/auth/verify-email/resend': { path: () => '/api/auth/verify-email/resend', statuses: [202] },
+  'PATCH /api/auth/me': { browser: async () => (await signedIn(t.app)).browser, path: () => '/api/auth/me', body: () => ({ displayName: 'Fields Person' }), statuses: [200] },
+  'POST /api/auth/password': {
+    browser: async () => (await signedIn(t.app)).browser,
+    path: () => '/api/auth/password',
+    body: () => ({ currentPassword: 'not-the-password', password: 'a-long-new-password' }),
+    statuses: [400],
+  },
   'POST /api/auth/password-reset/request': { path: () => '/api/auth/password-reset/request', body: () => ({ email: grower.user.email }), statuses: [202] },
   'POST /api/auth/password-reset': { path: () => '/api/auth/password-reset', body: () => ({ token: 'x'.repeat(40), password: 'a-long-new-password' }), statuses: [400] },
   'POST /api/batch-check': {

@@ -57,6 +57,8 @@ const targets = (): [string, string, keyof typeof as][] => [
   ['POST', '/api/steward/messages/999999/show', 'steward'],
   ['POST', '/api/library/no-such-note/take-down', 'steward'],
   ['POST', '/api/auth/password-reset', 'grower'],
+  ['PATCH', '/api/auth/me', 'grower'],
+  ['POST', '/api/auth/password', 'grower'],
   ['POST', '/api/auth/verify-email', 'grower'],
 ];
 
@@ -64,7 +66,7 @@ const targets = (): [string, string, keyof typeof as][] => [
 // values — the second reaches deeper into the validators than random keys would.
 const FIELDS = ['stage', 'culture', 'sugar', 'sugarType', 'moisturePct', 'containerWeight', 'label', 'madeOn', 'symptoms', 'title',
   'description', 'numbers', 'batchId', 'clientId', 'body', 'kind', 'status', 'mentorId', 'cause', 'remedy', 'summary', 'outcome',
-  'stars', 'consentToPublish', 'on', 'about', 'finishedOn', 'experience', 'stages', 'region', 'role', 'disabled', 'decision', 'note', 'token', 'password',
+  'stars', 'consentToPublish', 'on', 'about', 'finishedOn', 'currentPassword', 'experience', 'stages', 'region', 'role', 'disabled', 'decision', 'note', 'token', 'password',
   'value', 'unit', 'published', 'urgency', 'growerId'];
 const fieldValue = fc.oneof(
   fc.jsonValue(),

@@ -85,6 +85,7 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: 'steward', ...page(() => import('./routes/steward/steward-desk'), ['steward']) },
         { path: 'mentors/:id', ...page(() => import('./routes/mentors/mentor-profile'), 'signed-in') },
         { path: 'apply-to-mentor', ...page(() => import('./routes/mentors/apply'), 'signed-in') },
+        { path: 'account', ...page(() => import('./routes/account/account'), 'signed-in') },
         { path: '*', ...page(() => import('./routes/not-found')) },
       ],
     },

@@ -32,7 +32,9 @@ export function UserMenu({ user, layout }: { user: PublicUser | null; layout: 'b
     <div className={cx('flex gap-3', stacked ? 'flex-col sm:items-start' : 'items-center')}>
       <p className="leading-tight">
         <span className="sr-only">Signed in as </span>
-        <span className="block max-w-48 truncate font-extrabold">{user.displayName}</span>
+        <Link to="/account" aria-label={`${user.displayName}, your account`} className="block max-w-48 truncate font-extrabold text-loam">
+          {user.displayName}
+        </Link>
         <span className="block text-base text-loam-soft">
           {ROLE_LABELS[user.role]}
           {/* In the bar at a desk there is no room beside a full menu; the rounds page links it there. */}

@@ -1,11 +1,12 @@
 import { Router, type Request } from 'express';
 import passport from 'passport';
 import { z } from 'zod';
-import { emailSchema, loginSchema, passwordSchema, registerSchema } from '../../../shared/auth-schemas';
+import { accountPatchSchema, emailSchema, loginSchema, passwordChangeSchema, passwordSchema, registerSchema } from '../../../shared/auth-schemas';
 import type { AppContext } from '../../context';
 import { destroyUserSessions, sessionCookieName } from '../../lib/session';
 import { AppError } from '../../lib/errors';
-import { parseOr400, requireUser } from '../../lib/http';
+import { parseOr400, requireSignedIn, requireUser } from '../../lib/http';
+import { usersRepository } from '../users/users.repository';
 import { log } from '../../lib/logger';
 import { sessionEvents } from '../../lib/session-events';
 import type { UserRecord } from '../users/users.repository';
@@ -66,6 +67,22 @@ export function authRouter(ctx: AppContext): Router {
 
   router.get('/me', (req, res) => {
     res.json(auth.toPublicUser(requireUser(req)));
+  });
+
+  router.patch('/me', requireSignedIn, async (req, res) => {
+    const { displayName } = parseOr400(accountPatchSchema, req.body);
+    const updated = await usersRepository.update(requireUser(req).id, { displayName });
+    res.json(auth.toPublicUser(updated ?? requireUser(req)));
+  });
+
+  // The other sessions end (their sockets too); this one goes on.
+  router.post('/password', requireSignedIn, async (req, res) => {
+    const input = parseOr400(passwordChangeSchema, req.body);
+    const user = requireUser(req);
+    await auth.changePassword(user, input, req.ip, config.publicUrl);
+    ctx.pokeMail();
+    for (const sid of await destroyUserSessions(ctx.sessions.pool, user.id, req.sessionID)) sessionEvents.emit('session:ended', sid);
+    res.json({ ok: true });
   });
 
   router.post('/verify-email', async (req, res) => {

@@ -1,6 +1,6 @@
 import crypto from 'node:crypto';
 import { QueryTypes } from 'sequelize';
-import type { LoginInput, PublicUser, RegisterInput } from '../../../shared/auth-schemas';
+import type { LoginInput, PasswordChangeInput, PublicUser, RegisterInput } from '../../../shared/auth-schemas';
 import { getSequelize } from '../../db/sequelize';
 import { AppError } from '../../lib/errors';
 import { log } from '../../lib/logger';
@@ -159,6 +159,57 @@ export async function requestPasswordReset(email: string, publicUrl: string): Pr
       `${publicUrl}/reset-password?token=${token}\n\nThe link works for one hour. If it was not you, ignore this e-mail; your password stays as it is.\n`,
   });
   log.security('auth.reset_requested', { userId: user.id });
+}
+
+/**
+ * A signed-in person changes their password: the current one is checked under the same
+ * per-account throttle as signing in (a stolen session cannot guess it), and they are mailed
+ * that it changed. The caller ends their other sessions.
+ */
+export async function changePassword(user: UserRecord, input: PasswordChangeInput, ip: string | undefined, publicUrl: string): Promise<void> {
+  const { retryAfter: wait, user: found } = await reserveAttempt(user.email, ip);
+  if (wait !== null) {
+    log.security('auth.password_change_throttled', { userId: user.id, ip });
+    const minutes = Math.ceil(wait / 60);
+    throw new AppError(
+      429,
+      'too_many_attempts',
+      `Too many wrong passwords for this account. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}, or reset your password by e-mail.`,
+      undefined,
+      { 'Retry-After': String(wait) },
+    );
+  }
+  if (!found || !(await verifyPassword(found.passwordHash, input.currentPassword))) {
+    log.security('auth.password_change_failed', { userId: user.id, ip });
+    throw new AppError(400, 'invalid_input', 'Some fields need fixing.', { currentPassword: 'That is not your current password.' });
+  }
+  if (isCommonPassword(input.password)) {
+    await clearFailures(user.email);
+    throw new AppError(400, 'invalid_input', 'Choose a stronger password.', { password: COMMON_PASSWORD_MESSAGE });
+  }
+  if (input.password === input.currentPassword) {
+    await clearFailures(user.email);
+    throw new AppError(400, 'invalid_input', 'Some fields need fixing.', { password: 'That is the password you have now. Choose a new one.' });
+  }
+  await getSequelize().transaction(async (transaction) => {
+    await getSequelize().query(`UPDATE users SET password_hash = :hash, updated_at = now() WHERE id = :id`, {
+      replacements: { id: user.id, hash: await hashPassword(input.password) },
+      transaction,
+    });
+    await enqueueMail(
+      {
+        to: user.email,
+        kind: 'password_changed',
+        subject: 'Your Sporewell password was changed',
+        text:
+          `Hello ${user.displayName},\n\nThe password of your Sporewell account was changed just now, and every other place where you were signed in was signed out.\n\n` +
+          `If that was not you, choose a new password at once: ${publicUrl}/forgot-password\n`,
+      },
+      transaction,
+    );
+  });
+  await clearFailures(user.email);
+  log.security('auth.password_changed', { userId: user.id, ip });
 }
 
 export async function resetPassword(token: string, password: string): Promise<UserRecord> {
