@@ -92,7 +92,9 @@ export default function BatchPageRoute() {
                 ))}
               </ul>
             ) : (
-              <p className="mt-2 text-loam-soft">None yet. If it starts to smell, bubble or change colour, open a case while it can still be saved.</p>
+              <p className="mt-2 text-loam-soft">
+                {batch.finishedOn ? 'None.' : 'None yet. If it starts to smell, bubble or change colour, open a case while it can still be saved.'}
+              </p>
             )}
           </section>
           <OffShelfControl batch={batch} />
