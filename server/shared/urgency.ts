@@ -171,5 +171,8 @@ interface Part {
 /** A high-urgency case nobody has taken for this long is mailed to the mentors who asked for it (once a case). */
 export const URGENT_WAIT_MINUTES = 60;
 
+/** A mentor's reply mails the grower (when they are away) at most once a case in this many minutes. */
+export const REPLY_MAIL_WINDOW_MINUTES = 10;
+
 /** A grower's post on a case a mentor holds, left unread this long, is mailed to that mentor (once, until they read). */
 export const GROWER_WROTE_MAIL_MINUTES = 10;

@@ -44,6 +44,16 @@ describe('your account', () => {
 
     expect((await otherDevice.request.get('/api/auth/me')).status()).toBe(401);
     expect((await context.request.get('/api/auth/me')).status()).toBe(200);
+    // The reply mail is on at first; unticking it is saved.
+    const replies = page.getByRole('checkbox', { name: /E-mail me when a mentor replies on a case of mine/ });
+    await expect.poll(() => replies.isEnabled(), WAIT).toBe(true);
+    expect(await replies.isChecked()).toBe(true);
+    await replies.focus();
+    await page.keyboard.press('Space');
+    await page.getByText('Saved: no e-mails when a mentor replies.', { exact: false }).waitFor(WAIT);
+    expect(((await (await context.request.get('/api/cases/preferences/reply-mail')).json()) as { on: boolean }).on).toBe(false);
+    expect(await page.getByRole('checkbox', { name: /urgent cases/ }).count()).toBe(0);
+
     const fresh = await chromium.newContext(PHONE);
     expect((await fresh.request.post('/api/auth/login', { data: { email: grower.email, password: 'three-hens-and-a-compost-heap' } })).status()).toBe(200);
   });

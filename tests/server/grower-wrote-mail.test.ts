@@ -142,7 +142,7 @@ describe('GET and PATCH /api/cases/preferences/grower-wrote-mail', () => {
     expect((await mentor.browser.get('/api/cases/preferences/grower-wrote-mail').expect(200)).body).toEqual({ on: true });
     expect((await mentor.browser.patch('/api/cases/preferences/grower-wrote-mail').set(JSON_HEADERS).send({ on: false }).expect(200)).body).toEqual({ on: false });
     expect((await mentor.browser.get('/api/cases/preferences/grower-wrote-mail').expect(200)).body).toEqual({ on: false });
-    expect(await usersRepository.growerWroteMail(mentor.user.id)).toBe(false);
+    expect(await usersRepository.mailChoice(mentor.user.id, 'growerWrote')).toBe(false);
     expect((await mentor.browser.patch('/api/cases/preferences/grower-wrote-mail').set(JSON_HEADERS).send({ on: true }).expect(200)).body).toEqual({ on: true });
   });
 

@@ -7,7 +7,7 @@ import { createTransport } from '../../server/src/modules/mail/mailer';
 import { sendDueMail } from '../../server/src/modules/mail/outbox';
 import { runUrgentCaseCheck } from '../../server/src/modules/threads/urgent-watcher';
 import { usersRepository } from '../../server/src/modules/users/users.repository';
-import { makeTestApp, type TestApp } from '../setup/test-app';
+import { agent, makeTestApp, type TestApp } from '../setup/test-app';
 import { createUser } from '../factories/users';
 import { createThreadCase, JSON_HEADERS, newClientId, outboxFor, signedInAs } from '../factories/threads';
 
@@ -42,6 +42,23 @@ describe('the mail to a grower when a mentor replies', () => {
     expect(mails[0].body_text).toContain(`${t.config.publicUrl}/cases/${kase.id}#conversation\n`);
     expect(mails[0].dedupe_key).toMatch(new RegExp(`^reply:${kase.id}:\\d+$`));
     expect(t.mailPokes).toBe(pokes + 1);
+    // and where to turn them off
+    expect(mails[0].body_text).toContain(`${t.config.publicUrl}/account`);
+  });
+
+  test('when the grower turned the reply mail off on their account page, then a reply queues none; turned on again, the next does', async () => {
+    const grower = await signedIn('grower');
+    const mentor = await signedIn('mentor');
+    expect((await grower.browser.get('/api/cases/preferences/reply-mail').expect(200)).body).toEqual({ on: true });
+    await grower.browser.patch('/api/cases/preferences/reply-mail').set(JSON_HEADERS).send({ on: false }).expect(200);
+    const kase = await createThreadCase({ growerId: grower.user.id });
+    await post(mentor.browser, kase.id, 'Stir it once and leave it be.').expect(201);
+    expect(await outboxFor(grower.user.email, 'mentor_reply')).toHaveLength(0);
+    expect((await grower.browser.patch('/api/cases/preferences/reply-mail').set(JSON_HEADERS).send({ on: true }).expect(200)).body).toEqual({ on: true });
+    const other = await createThreadCase({ growerId: grower.user.id });
+    await post(mentor.browser, other.id, 'Add a handful of sugar on top.').expect(201);
+    expect(await outboxFor(grower.user.email, 'mentor_reply')).toHaveLength(1);
+    expect((await agent(t.app).get('/api/cases/preferences/reply-mail')).status).toBe(401);
   });
 
   test('when a mentor replies again within 10 minutes, then no second mail is queued for that case', async () => {

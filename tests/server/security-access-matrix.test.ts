@@ -126,6 +126,8 @@ const MATRIX: Record<string, Row> = {
   'GET /api/cases/unread': { path: () => '/api/cases/unread', expect: SIGNED_IN },
   'GET /api/cases/preferences/urgent-mail': { path: () => '/api/cases/preferences/urgent-mail', expect: STAFF_ONLY },
   'PATCH /api/cases/preferences/urgent-mail': { path: () => '/api/cases/preferences/urgent-mail', body: () => ({ on: false }), expect: STAFF_ONLY },
+  'GET /api/cases/preferences/reply-mail': { path: () => '/api/cases/preferences/reply-mail', expect: SIGNED_IN },
+  'PATCH /api/cases/preferences/reply-mail': { path: () => '/api/cases/preferences/reply-mail', body: () => ({ on: true }), expect: SIGNED_IN },
   'GET /api/cases/preferences/grower-wrote-mail': { path: () => '/api/cases/preferences/grower-wrote-mail', expect: STAFF_ONLY },
   'PATCH /api/cases/preferences/grower-wrote-mail': { path: () => '/api/cases/preferences/grower-wrote-mail', body: () => ({ on: true }), expect: STAFF_ONLY },
   'GET /api/cases/:id': { path: (f) => `/api/cases/${f.caseId}`, expect: CASE_READERS },

@@ -238,6 +238,7 @@ const FIELD_ROWS: Record<string, FieldRow> = {
 
   // Not the grower's routes: refused outright, whatever fields come along.
   'PATCH /api/cases/preferences/urgent-mail': { path: () => '/api/cases/preferences/urgent-mail', body: () => ({ on: true }), statuses: REFUSED },
+  'PATCH /api/cases/preferences/reply-mail': { path: () => '/api/cases/preferences/reply-mail', body: () => ({ on: true }), statuses: [200] },
   'PATCH /api/cases/preferences/grower-wrote-mail': { path: () => '/api/cases/preferences/grower-wrote-mail', body: () => ({ on: true }), statuses: REFUSED },
   'POST /api/cases/:id/claim': { path: (f) => `/api/cases/${f.caseId}/claim`, statuses: REFUSED },
   'POST /api/cases/:id/hand-over': { state: 'talking', path: (f) => `/api/cases/${f.caseId}/hand-over`, body: () => ({ mentorId: otherMentorId }), statuses: REFUSED },

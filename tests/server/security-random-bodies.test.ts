@@ -49,6 +49,7 @@ const targets = (): [string, string, keyof typeof as][] => [
   ['POST', `/api/cases/${caseId}/consent`, 'grower'],
   ['PATCH', '/api/cases/preferences/urgent-mail', 'mentor'],
   ['PATCH', '/api/cases/preferences/grower-wrote-mail', 'mentor'],
+  ['PATCH', '/api/cases/preferences/reply-mail', 'grower'],
   ['PATCH', '/api/mentors/me', 'mentor'],
   ['POST', '/api/mentor-applications', 'grower'],
   ['PATCH', '/api/steward/users/999999', 'steward'],

@@ -14,6 +14,7 @@ import { AppError, conflict, forbidden, notFound, unauthorized } from '../../lib
 import { log } from '../../lib/logger';
 import { readableCaseOr404, seesAsides, type CaseAccessRow } from '../cases/case-access';
 import { enqueueMail } from '../mail/outbox';
+import { REPLY_MAIL_WINDOW_MINUTES } from '../../../shared/urgency';
 import { messagesRepository as repo, type ThreadCase } from './messages.repository';
 import { writeMessage } from './message-writer';
 import { isViewingCase, type ThreadChange } from './thread-events';
@@ -21,7 +22,6 @@ import { setWaiting, urgencyNow } from './urgency-recompute';
 
 /** A thread whose case ended takes no more text; mentors may still note asides on it. */
 const CLOSED_THREAD = new Set(['recovered', 'lost', 'withdrawn']);
-export const REPLY_MAIL_WINDOW_MINUTES = 10;
 export const FIRST_LOOK_COUNT = 100;
 const PREVIEW_CHARS = 140;
 
@@ -204,7 +204,7 @@ async function queueReplyMail(ctx: AppContext, row: ThreadCase, mentor: Express.
   );
   if (recent.length) return false;
   const [grower] = await sequelize.query<{ email: string; displayName: string }>(
-    `SELECT email, display_name AS "displayName" FROM users WHERE id = :id AND NOT disabled`,
+    `SELECT email, display_name AS "displayName" FROM users WHERE id = :id AND NOT disabled AND notify_mentor_replied`,
     { replacements: { id: row.growerId }, type: QueryTypes.SELECT, transaction },
   );
   if (!grower) return false;
@@ -220,6 +220,7 @@ async function queueReplyMail(ctx: AppContext, row: ThreadCase, mentor: Express.
         `${ctx.config.publicUrl}${conversationPath(row.id)}`,
         '',
         `Sporewell sends at most one of these e-mails per case every ${REPLY_MAIL_WINDOW_MINUTES} minutes, and none while you have the case open.`,
+        `To stop them, untick “E-mail me when a mentor replies” on your account page: ${ctx.config.publicUrl}/account`,
         'Advice on Sporewell comes from community members, not from licensed professionals.',
       ].join('\n'),
       kind: 'mentor_reply',

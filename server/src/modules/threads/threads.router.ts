@@ -43,12 +43,23 @@ export function threadsRouter(ctx: AppContext): Router {
 
   // On unless turned off: a mail when a grower's post on a case they hold stays unread (grower-wrote-watcher.ts).
   router.get('/preferences/grower-wrote-mail', requireRole('mentor', 'steward'), async (req, res) => {
-    res.json({ on: await usersRepository.growerWroteMail(requireUser(req).id) });
+    res.json({ on: await usersRepository.mailChoice(requireUser(req).id, 'growerWrote') });
   });
 
   router.patch('/preferences/grower-wrote-mail', requireRole('mentor', 'steward'), async (req, res) => {
     const { on } = parseOr400(mailChoiceBody, req.body);
-    res.json({ on: await usersRepository.setGrowerWroteMail(requireUser(req).id, on) });
+    res.json({ on: await usersRepository.setMailChoice(requireUser(req).id, 'growerWrote', on) });
+  });
+
+  // Anyone signed in (a grower, or a mentor on a case of their own): on unless turned off; the
+  // reply mail of messages.service.ts reads it.
+  router.get('/preferences/reply-mail', requireSignedIn, async (req, res) => {
+    res.json({ on: await usersRepository.mailChoice(requireUser(req).id, 'mentorReplied') });
+  });
+
+  router.patch('/preferences/reply-mail', requireSignedIn, async (req, res) => {
+    const { on } = parseOr400(mailChoiceBody, req.body);
+    res.json({ on: await usersRepository.setMailChoice(requireUser(req).id, 'mentorReplied', on) });
   });
 
   router.get('/:id/messages', requireSignedIn, async (req, res) => {

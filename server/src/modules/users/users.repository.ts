@@ -44,6 +44,10 @@ function withoutHash({ passwordHash: _hash, ...rest }: UserWithHash): UserRecord
 
 export class EmailTakenError extends Error {}
 
+/** The mail choices kept as columns of users (a fixed list: the name goes into SQL). */
+const MAIL_CHOICE_COLUMNS = { growerWrote: 'notify_grower_wrote', mentorReplied: 'notify_mentor_replied' } as const;
+export type MailChoiceColumn = keyof typeof MAIL_CHOICE_COLUMNS;
+
 export const usersRepository = {
   async create(input: { email: string; displayName: string; passwordHash: string; role?: Role; emailVerified?: boolean }): Promise<UserRecord> {
     try {
@@ -73,19 +77,22 @@ export const usersRepository = {
   },
 
   /**
-   * Whether a mentor is mailed about grower posts left unread on cases they hold. Read apart from
-   * the signed-in user (the session lookup on every request has no need of it).
+   * A person's choice about one kind of mail: `notify_grower_wrote` (a mentor, about grower posts
+   * left unread on cases they hold) or `notify_mentor_replied` (a grower, about replies while
+   * they are away). Read apart from the signed-in user: the session lookup on every request has
+   * no need of them.
    */
-  async growerWroteMail(id: number): Promise<boolean> {
-    const [row] = await UserModel.sequelize!.query<{ on: boolean }>(`SELECT notify_grower_wrote AS "on" FROM users WHERE id = :id`, {
+  async mailChoice(id: number, column: MailChoiceColumn): Promise<boolean> {
+    const [row] = await UserModel.sequelize!.query<{ on: boolean }>(`SELECT ${MAIL_CHOICE_COLUMNS[column]} AS "on" FROM users WHERE id = :id`, {
       replacements: { id },
       type: QueryTypes.SELECT,
     });
     return row?.on ?? false;
   },
 
-  async setGrowerWroteMail(id: number, on: boolean): Promise<boolean> {
-    const [row] = await UserModel.sequelize!.query<{ on: boolean }>(`UPDATE users SET notify_grower_wrote = :on WHERE id = :id RETURNING notify_grower_wrote AS "on"`, {
+  async setMailChoice(id: number, column: MailChoiceColumn, on: boolean): Promise<boolean> {
+    const name = MAIL_CHOICE_COLUMNS[column];
+    const [row] = await UserModel.sequelize!.query<{ on: boolean }>(`UPDATE users SET ${name} = :on WHERE id = :id RETURNING ${name} AS "on"`, {
       replacements: { id, on },
       type: QueryTypes.SELECT,
     });

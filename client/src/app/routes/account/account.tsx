@@ -48,7 +48,7 @@ export default function AccountRoute() {
           </p>
         </section>
 
-        {isStaffRole(user.role) && <MailSettings />}
+        <MailSettings show={isStaffRole(user.role) ? ['own', 'staff'] : ['own']} />
       </div>
     </ContentLayout>
   );

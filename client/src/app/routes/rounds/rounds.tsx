@@ -136,7 +136,7 @@ export default function RoundsRoute() {
             )}
           </div>
         ) : null}
-        <MailSettings />
+        <MailSettings show={['staff']} />
       </div>
     </ContentLayout>
   );

@@ -1,11 +1,11 @@
-// A mentor's mail choices, each on its own route: the urgent-case mail (off unless asked for)
-// and the mail about a grower's post left unread on a case they hold (on unless turned off).
-// The watchers on the server read them.
+// Mail choices, each on its own route: for mentors the urgent-case mail (off unless asked for)
+// and the mail about a grower's post left unread on a case they hold; for anyone with a case,
+// the mail when a mentor replies while they are away (both on unless turned off).
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import { roundsKeys } from './rounds-keys';
 
-export type MailChoice = 'urgent-mail' | 'grower-wrote-mail';
+export type MailChoice = 'urgent-mail' | 'grower-wrote-mail' | 'reply-mail';
 
 interface Choice {
   on: boolean;
