@@ -13,3 +13,10 @@ export function casePath(caseId: number | string): string {
 export function conversationPath(caseId: number | string): string {
   return `${casePath(caseId)}#${CONVERSATION_ANCHOR}`;
 }
+
+/** Where mails about a member's own e-mail choices send them to turn one off. */
+export const MAIL_SETTINGS_ANCHOR = 'mail-settings';
+/** The mentors' choices, at the foot of the rounds. */
+export const MENTOR_MAIL_SETTINGS_PATH = `/rounds#${MAIL_SETTINGS_ANCHOR}`;
+/** Everyone's choices, on their account page. */
+export const ACCOUNT_PATH = '/account';

@@ -217,14 +217,14 @@ export interface ReportReceipt {
   alreadyReported: boolean;
 }
 
-/** What POST /api/steward/messages/:id/hide answers. */
-/** POST /api/steward/messages/:id/show: a hidden message back in its thread. */
+/** What POST /api/steward/messages/:id/show answers: a hidden message back in its thread. */
 export interface ShownMessage {
   id: number;
   caseId: number;
   hidden: false;
 }
 
+/** What POST /api/steward/messages/:id/hide answers. */
 export interface HiddenMessage {
   id: number;
   caseId: number;

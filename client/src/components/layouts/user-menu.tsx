@@ -4,6 +4,7 @@ import { useLogout } from '../../features/auth/api/logout';
 import { ROLE_LABELS, signInPath } from '../../lib/auth';
 import { Button, buttonClasses } from '../ui/button';
 import { cx } from '../ui/cx';
+import { ACCOUNT_PATH } from '@shared/case-links';
 import { isStaffRole } from '@shared/case-status';
 
 /** Who is signed in and the way out; for a visitor, the ways in. */
@@ -32,7 +33,7 @@ export function UserMenu({ user, layout }: { user: PublicUser | null; layout: 'b
     <div className={cx('flex gap-3', stacked ? 'flex-col sm:items-start' : 'items-center')}>
       <p className="leading-tight">
         <span className="sr-only">Signed in as </span>
-        <Link to="/account" aria-label={`${user.displayName}, your account`} className="block max-w-48 truncate font-extrabold text-loam">
+        <Link to={ACCOUNT_PATH} aria-label={`${user.displayName}, your account`} className="block max-w-48 truncate font-extrabold text-loam">
           {user.displayName}
         </Link>
         <span className="block text-base text-loam-soft">

@@ -6,10 +6,9 @@ import type { AppContext } from '../../context';
 import { destroyUserSessions, sessionCookieName } from '../../lib/session';
 import { AppError } from '../../lib/errors';
 import { parseOr400, requireSignedIn, requireUser } from '../../lib/http';
-import { usersRepository } from '../users/users.repository';
 import { log } from '../../lib/logger';
 import { sessionEvents } from '../../lib/session-events';
-import type { UserRecord } from '../users/users.repository';
+import { usersRepository, type UserRecord } from '../users/users.repository';
 import * as auth from './auth.service';
 
 function signIn(req: Request, user: UserRecord): Promise<void> {

@@ -47,18 +47,19 @@ export async function register(input: RegisterInput, publicUrl: string): Promise
   }
 }
 
+/** A refused attempt under the per-account throttle: 429, when to try again, and the way round. */
+function throttled(wait: number, what: string, otherwise: string): AppError {
+  const minutes = Math.ceil(wait / 60);
+  return new AppError(429, 'too_many_attempts', `${what}. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}, ${otherwise}.`, undefined, {
+    'Retry-After': String(wait),
+  });
+}
+
 export async function authenticate(input: LoginInput, ip: string | undefined): Promise<UserRecord> {
   const { retryAfter: wait, user } = await reserveAttempt(input.email, ip);
   if (wait !== null) {
     log.security('auth.sign_in_throttled', { email: input.email, ip });
-    const minutes = Math.ceil(wait / 60);
-    throw new AppError(
-      429,
-      'too_many_attempts',
-      `Too many failed sign-ins for this account. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}, or reset your password.`,
-      undefined,
-      { 'Retry-After': String(wait) },
-    );
+    throw throttled(wait, 'Too many failed sign-ins for this account', 'or reset your password');
   }
   const ok = user ? await verifyPassword(user.passwordHash, input.password) : (await burnTime(input.password), false);
   if (!user || !ok) {
@@ -170,32 +171,23 @@ export async function changePassword(user: UserRecord, input: PasswordChangeInpu
   const { retryAfter: wait, user: found } = await reserveAttempt(user.email, ip);
   if (wait !== null) {
     log.security('auth.password_change_throttled', { userId: user.id, ip });
-    const minutes = Math.ceil(wait / 60);
-    throw new AppError(
-      429,
-      'too_many_attempts',
-      `Too many wrong passwords for this account. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}, or reset your password by e-mail.`,
-      undefined,
-      { 'Retry-After': String(wait) },
-    );
+    throw throttled(wait, 'Too many wrong passwords for this account', 'or reset your password by e-mail');
   }
   if (!found || !(await verifyPassword(found.passwordHash, input.currentPassword))) {
     log.security('auth.password_change_failed', { userId: user.id, ip });
     throw new AppError(400, 'invalid_input', 'Some fields need fixing.', { currentPassword: 'That is not your current password.' });
   }
+  // The current password was right: the attempt slot goes, whatever is wrong with the new one.
+  await clearFailures(user.email);
   if (isCommonPassword(input.password)) {
-    await clearFailures(user.email);
     throw new AppError(400, 'invalid_input', 'Choose a stronger password.', { password: COMMON_PASSWORD_MESSAGE });
   }
   if (input.password === input.currentPassword) {
-    await clearFailures(user.email);
     throw new AppError(400, 'invalid_input', 'Some fields need fixing.', { password: 'That is the password you have now. Choose a new one.' });
   }
+  const passwordHash = await hashPassword(input.password);
   await getSequelize().transaction(async (transaction) => {
-    await getSequelize().query(`UPDATE users SET password_hash = :hash, updated_at = now() WHERE id = :id`, {
-      replacements: { id: user.id, hash: await hashPassword(input.password) },
-      transaction,
-    });
+    await usersRepository.update(user.id, { passwordHash }, transaction);
     await enqueueMail(
       {
         to: user.email,
@@ -208,7 +200,6 @@ export async function changePassword(user: UserRecord, input: PasswordChangeInpu
       transaction,
     );
   });
-  await clearFailures(user.email);
   log.security('auth.password_changed', { userId: user.id, ip });
 }
 

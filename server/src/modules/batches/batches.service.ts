@@ -55,11 +55,17 @@ export function batchView(row: BatchRow): BatchView {
   };
 }
 
+/** A batch is finished on or after the day it was made; the error names the field that moved. */
+function finishedAfterMade(madeOn: string, finishedOn: string | null, field: 'finishedOn' | 'madeOn'): void {
+  if (finishedOn === null || finishedOn >= madeOn) return;
+  throw new AppError(400, 'invalid_input', 'Some fields need fixing.', {
+    [field]: field === 'finishedOn' ? `The batch was made on ${madeOn}: it cannot be finished before that.` : `The batch was finished on ${finishedOn}: it was made before that.`,
+  });
+}
+
 export const batchesService = {
   async create(ownerId: number, input: BatchCreate): Promise<BatchView> {
-    if (input.finishedOn && input.finishedOn < input.madeOn) {
-      throw new AppError(400, 'invalid_input', 'Some fields need fixing.', { finishedOn: `The batch was made on ${input.madeOn}: it cannot be finished before that.` });
-    }
+    finishedAfterMade(input.madeOn, input.finishedOn ?? null, 'finishedOn');
     return batchView(await batchesRepository.create(ownerId, input));
   },
 
@@ -84,18 +90,13 @@ export const batchesService = {
     return { ...batchView(row), cases: cases.map((c) => ({ ...c, openedAt: c.openedAt.toISOString() })) };
   },
 
-  async update(ownerId: number, id: number, patch: BatchPatch, current?: BatchRow): Promise<BatchView> {
-    // Finished on or after the day it was made, whichever of the two this change moves.
-    if (current) {
-      const madeOn = patch.madeOn ?? current.madeOn;
-      const finishedOn = patch.finishedOn === undefined ? current.finishedOn : patch.finishedOn;
-      if (finishedOn !== null && finishedOn < madeOn) {
-        const field = patch.finishedOn !== undefined ? 'finishedOn' : 'madeOn';
-        throw new AppError(400, 'invalid_input', 'Some fields need fixing.', {
-          [field]: field === 'finishedOn' ? `The batch was made on ${madeOn}: it cannot be finished before that.` : `The batch was finished on ${finishedOn}: it was made before that.`,
-        });
-      }
-    }
+  /** `current` is the batch as it is now (the router read it to answer 404 first). */
+  async update(ownerId: number, id: number, patch: BatchPatch, current: BatchRow): Promise<BatchView> {
+    finishedAfterMade(
+      patch.madeOn ?? current.madeOn,
+      patch.finishedOn === undefined ? current.finishedOn : patch.finishedOn,
+      patch.finishedOn !== undefined ? 'finishedOn' : 'madeOn',
+    );
     const row = await batchesRepository.updateOwned(ownerId, id, patch);
     if (!row) throw await batchNotFound(ownerId, id);
     return batchView(row);

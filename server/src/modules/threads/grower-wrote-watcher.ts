@@ -6,16 +6,18 @@
 // the case count (a case claimed from the rounds was read before it was claimed), never hidden
 // ones, and nothing goes to a disabled account or to a mentor who turned these mails off.
 import { QueryTypes } from 'sequelize';
-import { conversationPath } from '../../../shared/case-links';
+import { conversationPath, MENTOR_MAIL_SETTINGS_PATH } from '../../../shared/case-links';
 import { GROWER_WROTE_MAIL_MINUTES } from '../../../shared/urgency';
 import type { AppContext } from '../../context';
 import { getSequelize } from '../../db/sequelize';
 import { enqueueMail } from '../mail/outbox';
+import { previewOf } from './messages.service';
 
 /** How much of the grower's post the mail quotes. */
 const QUOTE_CHARS = 280;
 
-export const growerWroteKey = (caseId: number, mentorId: number, seq: number) => `grower-wrote:${caseId}:${mentorId}:${seq}`;
+/** The outbox dedupe key; the query below builds the same one to skip what was already mailed. */
+const growerWroteKey = (caseId: number, mentorId: number, seq: number) => `grower-wrote:${caseId}:${mentorId}:${seq}`;
 
 interface Due {
   caseId: number;
@@ -56,8 +58,7 @@ export async function runGrowerWroteCheck(ctx: AppContext): Promise<number> {
   );
   let queued = 0;
   for (const item of due) {
-    const flat = item.body.replace(/\s+/g, ' ').trim();
-    const quote = flat.length > QUOTE_CHARS ? `${flat.slice(0, QUOTE_CHARS - 1)}…` : flat;
+    const quote = previewOf(item.body, QUOTE_CHARS);
     const more = item.unread > 1 ? `\n(and ${item.unread - 1} more ${item.unread === 2 ? 'post' : 'posts'} since)` : '';
     const added = await enqueueMail({
       to: item.mentorEmail,
@@ -73,7 +74,7 @@ export async function runGrowerWroteCheck(ctx: AppContext): Promise<number> {
         `${ctx.config.publicUrl}${conversationPath(item.caseId)}`,
         '',
         'Sporewell sends one of these e-mails a case until you have read the case again. To stop them, untick “E-mail me when a grower writes” at the foot of the rounds:',
-        `${ctx.config.publicUrl}/rounds#mail-settings`,
+        `${ctx.config.publicUrl}${MENTOR_MAIL_SETTINGS_PATH}`,
       ].join('\n'),
       kind: 'grower_wrote',
       dedupeKey: growerWroteKey(item.caseId, item.mentorId, item.seq),

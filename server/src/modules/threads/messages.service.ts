@@ -7,7 +7,7 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import type { ThreadMessage } from '../../../shared/socket-events';
 import { CATCH_UP_MAX } from '../../../shared/socket-events';
-import { conversationPath } from '../../../shared/case-links';
+import { ACCOUNT_PATH, conversationPath } from '../../../shared/case-links';
 import type { AppContext } from '../../context';
 import { getSequelize } from '../../db/sequelize';
 import { AppError, conflict, forbidden, notFound, unauthorized } from '../../lib/errors';
@@ -185,9 +185,10 @@ export async function writeSystemLine(caseId: number, actorId: number | null, bo
   return repo.insert({ caseId, authorId: actorId, kind: 'system', body, clientId: null }, transaction);
 }
 
-function previewOf(body: string): string {
+/** A post on one line, cut to `chars` with an ellipsis: the rounds' last-message line, a mail's quote. */
+export function previewOf(body: string, chars = PREVIEW_CHARS): string {
   const flat = body.replace(/\s+/g, ' ').trim();
-  return flat.length > PREVIEW_CHARS ? `${flat.slice(0, PREVIEW_CHARS - 1)}…` : flat;
+  return flat.length > chars ? `${flat.slice(0, chars - 1)}…` : flat;
 }
 
 /**
@@ -220,7 +221,7 @@ async function queueReplyMail(ctx: AppContext, row: ThreadCase, mentor: Express.
         `${ctx.config.publicUrl}${conversationPath(row.id)}`,
         '',
         `Sporewell sends at most one of these e-mails per case every ${REPLY_MAIL_WINDOW_MINUTES} minutes, and none while you have the case open.`,
-        `To stop them, untick “E-mail me when a mentor replies” on your account page: ${ctx.config.publicUrl}/account`,
+        `To stop them, untick “E-mail me when a mentor replies” on your account page: ${ctx.config.publicUrl}${ACCOUNT_PATH}`,
         'Advice on Sporewell comes from community members, not from licensed professionals.',
       ].join('\n'),
       kind: 'mentor_reply',

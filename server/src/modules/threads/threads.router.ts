@@ -1,14 +1,14 @@
 // The thread and workflow routes, mounted at /api/cases before the cases router. The fixed
 // paths (/unread, /preferences/...) come first so no `/:id` route can take them; every route
 // here carries its own guard, so requests meant for the cases router pass through untouched.
-import { Router, type Response } from 'express';
+import { Router, type RequestHandler, type Response } from 'express';
 import { z } from 'zod';
 import { caseStatusSchema } from '../../../shared/case-status-schemas';
 import { sendMessageSchema } from '../../../shared/socket-events';
 import type { AppContext } from '../../context';
 import { parseId, parseOr400, requireRole, requireSignedIn, requireUser } from '../../lib/http';
 import { seesAsides } from '../cases/case-access';
-import { usersRepository } from '../users/users.repository';
+import { usersRepository, type MailChoiceColumn } from '../users/users.repository';
 import { messagesRepository } from './messages.repository';
 import { listMessages, postMessage } from './messages.service';
 import { publishChange } from './thread-events';
@@ -19,6 +19,16 @@ const postBody = sendMessageSchema.omit({ caseId: true });
 const handOverBody = z.object({ mentorId: z.number({ error: 'Choose a mentor.' }).int().positive() });
 const statusBody = z.object({ status: caseStatusSchema });
 const mailChoiceBody = z.object({ on: z.boolean({ error: 'Say true or false.' }) });
+
+const staffOnly = requireRole('mentor', 'steward');
+const MAIL_CHOICES: { path: string; column: MailChoiceColumn; guard: RequestHandler }[] = [
+  // urgent cases nobody took (urgent-watcher.ts), off unless asked for
+  { path: 'urgent-mail', column: 'urgent', guard: staffOnly },
+  // a grower's post left unread on a case the mentor holds (grower-wrote-watcher.ts), on unless turned off
+  { path: 'grower-wrote-mail', column: 'growerWrote', guard: staffOnly },
+  // a mentor's reply while the grower is away (messages.service.ts), for anyone with a case, on unless turned off
+  { path: 'reply-mail', column: 'mentorReplied', guard: requireSignedIn },
+];
 
 export function threadsRouter(ctx: AppContext): Router {
   const router = Router();
@@ -31,36 +41,16 @@ export function threadsRouter(ctx: AppContext): Router {
     res.json({ total, byCase });
   });
 
-  router.get('/preferences/urgent-mail', requireRole('mentor', 'steward'), (req, res) => {
-    res.json({ on: requireUser(req).notifyUrgent });
-  });
-
-  router.patch('/preferences/urgent-mail', requireRole('mentor', 'steward'), async (req, res) => {
-    const { on } = parseOr400(mailChoiceBody, req.body);
-    const updated = await usersRepository.update(requireUser(req).id, { notifyUrgent: on });
-    res.json({ on: updated?.notifyUrgent ?? on });
-  });
-
-  // On unless turned off: a mail when a grower's post on a case they hold stays unread (grower-wrote-watcher.ts).
-  router.get('/preferences/grower-wrote-mail', requireRole('mentor', 'steward'), async (req, res) => {
-    res.json({ on: await usersRepository.mailChoice(requireUser(req).id, 'growerWrote') });
-  });
-
-  router.patch('/preferences/grower-wrote-mail', requireRole('mentor', 'steward'), async (req, res) => {
-    const { on } = parseOr400(mailChoiceBody, req.body);
-    res.json({ on: await usersRepository.setMailChoice(requireUser(req).id, 'growerWrote', on) });
-  });
-
-  // Anyone signed in (a grower, or a mentor on a case of their own): on unless turned off; the
-  // reply mail of messages.service.ts reads it.
-  router.get('/preferences/reply-mail', requireSignedIn, async (req, res) => {
-    res.json({ on: await usersRepository.mailChoice(requireUser(req).id, 'mentorReplied') });
-  });
-
-  router.patch('/preferences/reply-mail', requireSignedIn, async (req, res) => {
-    const { on } = parseOr400(mailChoiceBody, req.body);
-    res.json({ on: await usersRepository.setMailChoice(requireUser(req).id, 'mentorReplied', on) });
-  });
+  // The mail choices, each a GET and a PATCH { on } of its own.
+  for (const { path, column, guard } of MAIL_CHOICES) {
+    router.get(`/preferences/${path}`, guard, async (req, res) => {
+      res.json({ on: await usersRepository.mailChoice(requireUser(req).id, column) });
+    });
+    router.patch(`/preferences/${path}`, guard, async (req, res) => {
+      const { on } = parseOr400(mailChoiceBody, req.body);
+      res.json({ on: await usersRepository.setMailChoice(requireUser(req).id, column, on) });
+    });
+  }
 
   router.get('/:id/messages', requireSignedIn, async (req, res) => {
     const caseId = parseId(req.params.id, 'That case');

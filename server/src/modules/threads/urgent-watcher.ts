@@ -1,10 +1,10 @@
 // Mentors who asked for it (users.notify_urgent) get one e-mail when a high-urgency case has
-// waited more than an hour with nobody holding it. A small timer looks once a minute (mail-watcher.ts), scoring
-// each waiting case as the rounds table does (the hours waiting climb on their own), and mails
-// each such case once. cases.notify_urgent_sent_at is set in the mail's transaction by a conditional
+// waited more than an hour with nobody holding it. A small timer looks once a minute
+// (mail-watcher.ts), scoring each waiting case as the rounds table does (the hours waiting climb
+// on their own), and mails each such case once. cases.notify_urgent_sent_at is set in the mail's transaction by a conditional
 // UPDATE, so several processes running the watcher still send each case once.
 import { QueryTypes } from 'sequelize';
-import { casePath } from '../../../shared/case-links';
+import { casePath, MENTOR_MAIL_SETTINGS_PATH } from '../../../shared/case-links';
 import { URGENT_WAIT_MINUTES } from '../../../shared/urgency';
 import type { AppContext } from '../../context';
 import { getSequelize } from '../../db/sequelize';
@@ -53,7 +53,7 @@ export async function runUrgentCaseCheck(ctx: AppContext): Promise<number> {
               `${ctx.config.publicUrl}${casePath(item.id)}`,
               '',
               'You get this because you asked for e-mails about urgent cases. To stop them, untick “E-mail about urgent cases” at the foot of the rounds:',
-              `${ctx.config.publicUrl}/rounds#mail-settings`,
+              `${ctx.config.publicUrl}${MENTOR_MAIL_SETTINGS_PATH}`,
             ].join('\n'),
             kind: 'urgent_case',
             dedupeKey: `urgent:${item.id}:${mentor.id}`,

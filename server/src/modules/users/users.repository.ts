@@ -1,4 +1,4 @@
-import { Op, QueryTypes, UniqueConstraintError } from 'sequelize';
+import { Op, QueryTypes, UniqueConstraintError, type Transaction } from 'sequelize';
 import type { Role } from '../../../shared/case-status';
 import { UserModel } from './users.model';
 
@@ -45,7 +45,7 @@ function withoutHash({ passwordHash: _hash, ...rest }: UserWithHash): UserRecord
 export class EmailTakenError extends Error {}
 
 /** The mail choices kept as columns of users (a fixed list: the name goes into SQL). */
-const MAIL_CHOICE_COLUMNS = { growerWrote: 'notify_grower_wrote', mentorReplied: 'notify_mentor_replied' } as const;
+const MAIL_CHOICE_COLUMNS = { urgent: 'notify_urgent', growerWrote: 'notify_grower_wrote', mentorReplied: 'notify_mentor_replied' } as const;
 export type MailChoiceColumn = keyof typeof MAIL_CHOICE_COLUMNS;
 
 export const usersRepository = {
@@ -69,18 +69,21 @@ export const usersRepository = {
     return found ? userFromRow(found) : null;
   },
 
-  async update(id: number, changes: Partial<Pick<UserWithHash, 'role' | 'disabled' | 'displayName' | 'passwordHash' | 'emailVerified' | 'about' | 'notifyUrgent'>>): Promise<UserRecord | null> {
-    const found = await UserModel.findByPk(id);
+  async update(
+    id: number,
+    changes: Partial<Pick<UserWithHash, 'role' | 'disabled' | 'displayName' | 'passwordHash' | 'emailVerified' | 'about' | 'notifyUrgent'>>,
+    transaction?: Transaction,
+  ): Promise<UserRecord | null> {
+    const found = await UserModel.findByPk(id, { transaction });
     if (!found) return null;
-    await found.update(changes);
+    await found.update(changes, { transaction });
     return withoutHash(userFromRow(found));
   },
 
   /**
-   * A person's choice about one kind of mail: `notify_grower_wrote` (a mentor, about grower posts
-   * left unread on cases they hold) or `notify_mentor_replied` (a grower, about replies while
-   * they are away). Read apart from the signed-in user: the session lookup on every request has
-   * no need of them.
+   * A person's choice about one kind of mail: `notify_urgent` (a mentor, about urgent cases nobody
+   * took), `notify_grower_wrote` (a mentor, about grower posts left unread on cases they hold) or
+   * `notify_mentor_replied` (a grower, about replies while they are away).
    */
   async mailChoice(id: number, column: MailChoiceColumn): Promise<boolean> {
     const [row] = await UserModel.sequelize!.query<{ on: boolean }>(`SELECT ${MAIL_CHOICE_COLUMNS[column]} AS "on" FROM users WHERE id = :id`, {

@@ -9,14 +9,13 @@ import { Spinner } from '../../../components/ui/spinner';
 import { ConfirmEmailNotice } from '../../../features/auth/components/confirm-email-notice';
 import { batchesQueryOptions, useBatches } from '../../../features/batches/api/get-batches';
 import { BatchShelfTable } from '../../../features/batches/components/batch-shelf-table';
+import { OFF_SHELF_PATH, offShelfOf } from '../../../features/batches/lib/off-shelf';
 import { MyCasesList } from '../../../features/cases/components/my-cases-list';
 
-/** `?off=1` shows the batches taken off the shelf (used up or thrown out) instead. */
-const offShelfOf = (url: URL | URLSearchParams) => (url instanceof URL ? url.searchParams : url).get('off') === '1';
 
 export const clientLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
   // Warm the cache without failing the page: the page shows its own error with a way to retry.
-  await queryClient.prefetchQuery(batchesQueryOptions(offShelfOf(new URL(request.url))));
+  await queryClient.prefetchQuery(batchesQueryOptions(offShelfOf(new URL(request.url).searchParams)));
   return null;
 };
 
@@ -57,7 +56,7 @@ export default function BatchShelfRoute() {
       <ShelfList batches={batches} empty={<EmptyShelf />} />
       {counts && counts.finished > 0 && (
         <p className="mt-4">
-          <Link to="/batches?off=1">
+          <Link to={OFF_SHELF_PATH}>
             {counts.finished === 1 ? '1 batch' : `${counts.finished} batches`} taken off the shelf
           </Link>
           <span className="text-loam-soft"> — used up or thrown out</span>

@@ -6,6 +6,7 @@ import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { useUpdateBatch } from '../api/update-batch';
 import { formatMadeOn, todayIso } from '../lib/batch-format';
+import { OFF_SHELF_PATH } from '../lib/off-shelf';
 
 export function OffShelfControl({ batch }: { batch: BatchView }) {
   const update = useUpdateBatch(batch.id);
@@ -19,7 +20,7 @@ export function OffShelfControl({ batch }: { batch: BatchView }) {
       {off ? (
         <p className="mt-2">
           You took this batch off the shelf on {formatMadeOn(batch.finishedOn!)}. It is kept with its cases and its jar label, under{' '}
-          <Link to="/batches?off=1">batches taken off the shelf</Link>.
+          <Link to={OFF_SHELF_PATH}>batches taken off the shelf</Link>.
         </p>
       ) : (
         <p className="mt-2">

@@ -1,8 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { MessageReport } from '@shared/steward-schemas';
 import { api } from '../../../lib/api-client';
-import { stewardKeys } from '../../steward/api/steward-keys';
-import { moderationKeys } from './moderation-keys';
+import { afterModeration } from './moderation-keys';
 
 export function dismissReport(reportId: number, note: string): Promise<MessageReport> {
   return api.post(`/api/steward/reports/${reportId}/dismiss`, { note });
@@ -12,11 +11,6 @@ export function useDismissReport() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ reportId, note }: { reportId: number; note: string }) => dismissReport(reportId, note),
-    onSuccess: async () => {
-      await Promise.all([
-        queryClient.invalidateQueries({ queryKey: moderationKeys.all }),
-        queryClient.invalidateQueries({ queryKey: stewardKeys.audit() }),
-      ]);
-    },
+    onSuccess: () => afterModeration(queryClient),
   });
 }

@@ -1,11 +1,11 @@
 // On the rounds, below the list: which e-mails this mentor gets. Each box is saved as soon as it
-// changes; the mails themselves link back here (#mail-settings) to turn them off.
+// changes; the mails themselves link back here (MAIL_SETTINGS_ANCHOR) to turn them off.
 import { useId, type ReactNode } from 'react';
+import { MAIL_SETTINGS_ANCHOR } from '@shared/case-links';
 import { GROWER_WROTE_MAIL_MINUTES, REPLY_MAIL_WINDOW_MINUTES, URGENT_WAIT_MINUTES } from '@shared/urgency';
 import { Card } from '../../../components/ui/card';
 import { useMailChoice, useSetMailChoice, type MailChoice } from '../api/mail-choices';
 
-export const MAIL_SETTINGS_ANCHOR = 'mail-settings';
 
 function ChoiceBox({ choice, label, onText, offText }: { choice: MailChoice; label: ReactNode; onText: string; offText: string }) {
   const current = useMailChoice(choice);
